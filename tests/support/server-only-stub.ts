@@ -1,0 +1,2 @@
+// Stand-in for the 'server-only' guard under vitest, where the react-server condition is absent.
+export {};
