@@ -1,0 +1,23 @@
+import Link from 'next/link';
+
+/** The lab's sections, in the order of the job. Entries join as their pages land. */
+export const LAB_SECTIONS = [{ segment: '', label: 'Overview' }] as const;
+
+export function LabNav({ lab }: { lab: string }) {
+  return (
+    <nav aria-label="Lab sections" className="text-sm">
+      <ul className="space-y-1 border-l-[0.5px] border-rule">
+        {LAB_SECTIONS.map((s) => (
+          <li key={s.label}>
+            <Link
+              href={`/labs/${lab}${s.segment ? `/${s.segment}` : ''}`}
+              className="-ml-px block border-l border-transparent py-1.5 pl-4 text-graphite-soft hover:border-accent hover:text-graphite"
+            >
+              {s.label}
+            </Link>
+          </li>
+        ))}
+      </ul>
+    </nav>
+  );
+}

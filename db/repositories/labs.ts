@@ -1,0 +1,35 @@
+import { notFound } from '@/lib/errors';
+import type { DbHandle as Handle } from '../client';
+import type { LabRow, NewLabRow } from '../database';
+import { decodeCursor } from '../pagination';
+
+export function findLabBySlug(db: Handle, slug: string): Promise<LabRow | undefined> {
+  return db.selectFrom('labs').selectAll().where('slug', '=', slug).executeTakeFirst();
+}
+
+export async function getLabBySlug(db: Handle, slug: string): Promise<LabRow> {
+  const lab = await findLabBySlug(db, slug);
+  if (!lab) throw notFound('lab', 'No such lab.');
+  return lab;
+}
+
+export function insertLab(db: Handle, lab: NewLabRow): Promise<LabRow> {
+  return db.insertInto('labs').values(lab).returningAll().executeTakeFirstOrThrow();
+}
+
+/** Labs with the given ids, newest first, keyset-paginated; fetches `limit + 1` rows. */
+export async function listLabsByIds(
+  db: Handle,
+  ids: readonly string[],
+  page: { cursor?: string | undefined; limit: number },
+): Promise<LabRow[]> {
+  if (ids.length === 0) return [];
+  let q = db.selectFrom('labs').selectAll().where('id', 'in', ids);
+  if (page.cursor) {
+    const { at, id } = decodeCursor(page.cursor);
+    q = q.where((eb) =>
+      eb.or([eb('created_at', '<', new Date(at)), eb.and([eb('created_at', '=', new Date(at)), eb('id', '<', id)])]),
+    );
+  }
+  return q.orderBy('created_at', 'desc').orderBy('id', 'desc').limit(page.limit + 1).execute();
+}

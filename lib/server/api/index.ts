@@ -1,0 +1,3 @@
+import 'server-only';
+// Importing every route module fills the registry; the OpenAPI document and the authorisation tests read it.
+export * from './health';

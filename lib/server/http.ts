@@ -1,0 +1,223 @@
+import 'server-only';
+import { z } from 'zod';
+import {
+  AppError,
+  PROBLEM_CONTENT_TYPE,
+  toProblemDetails,
+  unauthenticated,
+  validationError,
+  type ActionResult,
+  type FieldErrors,
+} from '@/lib/errors';
+import { getRequestPrincipal, type Principal } from './auth/principal';
+import { logEvent } from './log';
+import type { PolicyAction } from './policy';
+
+/**
+ * The route and action wrappers, and the one registry of API routes. Every route declares its method, path,
+ * request and response schemas and the policy action it needs; the OpenAPI document and the authorisation tests
+ * are generated from `ROUTE_REGISTRY`.
+ */
+
+export type HttpMethod = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+
+/** Who may call a route: anyone, any signed-in user, or a lab member whose role allows `action`. */
+export type Access = { kind: 'public' } | { kind: 'user' } | { kind: 'lab'; action: PolicyAction };
+
+type AnyObject = z.ZodType<Record<string, unknown>>;
+
+export interface RouteContext<P, Q, B> {
+  params: P;
+  query: Q;
+  body: B;
+  principal: Principal;
+  request: Request;
+}
+
+export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z.ZodType, R extends z.ZodType> {
+  /** Stable operation id, e.g. `listLabs`. */
+  id: string;
+  method: HttpMethod;
+  /** OpenAPI-style path, e.g. `/api/v1/labs/{lab}/members`. */
+  path: `/api/${string}`;
+  summary: string;
+  tags?: string[];
+  access: Access;
+  params?: P;
+  query?: Q;
+  body?: B;
+  response: R;
+  successStatus?: 200 | 201 | 202 | 204;
+  /** Largest accepted JSON body in bytes (default 256 KiB). */
+  maxBodyBytes?: number;
+  /** Returns the JSON body (validated against `response`), or a ready `Response` for downloads and custom statuses. */
+  handler: (ctx: RouteContext<z.infer<P>, z.infer<Q>, z.infer<B>>) => Promise<z.input<R> | Response>;
+}
+
+export type AnyRouteSpec = RouteSpec<AnyObject, AnyObject, z.ZodType, z.ZodType>;
+
+const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
+const EMPTY_OBJECT = z.object({});
+
+const registry = new Map<string, AnyRouteSpec>();
+
+/** Declares a route and adds it to the registry. Ids and method+path pairs are unique. */
+export function defineRoute<P extends AnyObject, Q extends AnyObject, B extends z.ZodType, R extends z.ZodType>(
+  spec: RouteSpec<P, Q, B, R>,
+): RouteSpec<P, Q, B, R> {
+  const key = `${spec.method} ${spec.path}`;
+  for (const existing of registry.values()) {
+    if (existing.id === spec.id && `${existing.method} ${existing.path}` !== key) {
+      throw new Error(`duplicate route id ${spec.id}`);
+    }
+  }
+  registry.set(key, spec as unknown as AnyRouteSpec);
+  return spec;
+}
+
+/** Every declared route (after the route modules have been imported, see `lib/server/api/index.ts`). */
+export function registeredRoutes(): AnyRouteSpec[] {
+  return [...registry.values()];
+}
+
+/** Turns a zod failure into per-field messages keyed by dot-joined path (`_` for the whole value). */
+export function fieldErrorsOf(error: z.ZodError, prefix?: string): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of error.issues) {
+    const path = [prefix, ...issue.path.map(String)].filter(Boolean).join('.') || '_';
+    (fields[path] ??= []).push(issue.message);
+  }
+  return fields;
+}
+
+function parseWith<S extends z.ZodType>(schema: S, value: unknown, part: string): z.infer<S> {
+  const result = schema.safeParse(value);
+  if (!result.success) {
+    throw validationError('request', `The ${part} is not valid.`, fieldErrorsOf(result.error));
+  }
+  return result.data;
+}
+
+async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
+  const declared = Number(request.headers.get('content-length') ?? '0');
+  if (declared > maxBytes) throw new AppError('too_large:request', `The request body is over ${maxBytes} bytes.`);
+  const text = await readTextCapped(request, maxBytes);
+  if (text.trim() === '') return undefined;
+  const type = request.headers.get('content-type') ?? '';
+  if (!type.includes('application/json')) {
+    throw validationError('request', 'Send the body as application/json.');
+  }
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw validationError('request', 'The body is not valid JSON.');
+  }
+}
+
+/** Reads a request body as text, stopping with 413 as soon as it passes `maxBytes`. */
+export async function readTextCapped(request: Request, maxBytes: number): Promise<string> {
+  if (!request.body) return '';
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel();
+      throw new AppError('too_large:request', `The request body is over ${maxBytes} bytes.`);
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder().decode(Buffer.concat(chunks));
+}
+
+/** A problem-details response for any thrown value; unknown errors are logged in full and answered generically. */
+export function problemResponse(error: unknown, instance?: string): Response {
+  const problem = toProblemDetails(error, instance);
+  if (problem.status >= 500) logEvent('error', 'request failed', { error, instance });
+  const headers = new Headers({ 'content-type': PROBLEM_CONTENT_TYPE, 'cache-control': 'no-store' });
+  if (error instanceof AppError && error.headers) {
+    for (const [k, v] of Object.entries(error.headers)) headers.set(k, v);
+  }
+  return new Response(JSON.stringify(problem), { status: problem.status, headers });
+}
+
+type NextRouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
+
+/** The Next route handler for a registered route: parse → authenticate → call the service → map the result. */
+export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.ZodType, R extends z.ZodType>(
+  spec: RouteSpec<P, Q, B, R>,
+) {
+  const route = spec as unknown as AnyRouteSpec;
+  return async function handle(request: Request, context?: NextRouteContext): Promise<Response> {
+    const instance = new URL(request.url).pathname;
+    try {
+      const rawParams = (await context?.params) ?? {};
+      const params = parseWith(route.params ?? EMPTY_OBJECT, rawParams, 'path');
+      const url = new URL(request.url);
+      const query = parseWith(route.query ?? EMPTY_OBJECT, Object.fromEntries(url.searchParams), 'query');
+      const hasBody = route.method !== 'GET' && route.method !== 'DELETE';
+      const rawBody = hasBody ? await readJsonBody(request, route.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES) : undefined;
+      const body = route.body ? parseWith(route.body, rawBody ?? {}, 'body') : undefined;
+
+      const principal = await getRequestPrincipal(request);
+      if (route.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
+
+      const result = await route.handler({ params, query, body, principal, request });
+      if (result instanceof Response) return result;
+      const status = route.successStatus ?? 200;
+      if (status === 204) return new Response(null, { status });
+      const output = route.response.parse(result);
+      return Response.json(output, { status, headers: { 'cache-control': 'no-store' } });
+    } catch (error) {
+      return problemResponse(error, instance);
+    }
+  };
+}
+
+/** A registered server action: validates its input and returns a typed success/failure union. */
+export interface ActionSpec<I extends z.ZodType, O> {
+  id: string;
+  access: Access;
+  input: I;
+  handler: (input: z.infer<I>, principal: Principal) => Promise<O>;
+}
+
+const actionRegistry = new Map<string, ActionSpec<z.ZodType, unknown>>();
+
+export function registeredActions(): ActionSpec<z.ZodType, unknown>[] {
+  return [...actionRegistry.values()];
+}
+
+/**
+ * Declares a server action. The returned function authorises itself whatever the page did, and never throws
+ * to the client: failures come back as `{ ok: false, code, message, fields }`.
+ */
+export function defineAction<I extends z.ZodType, O>(
+  spec: ActionSpec<I, O>,
+  resolvePrincipal: () => Promise<Principal>,
+): (input: z.input<I>) => Promise<ActionResult<O>> {
+  actionRegistry.set(spec.id, spec as unknown as ActionSpec<z.ZodType, unknown>);
+  return async (input) => {
+    try {
+      const parsed = spec.input.safeParse(input);
+      if (!parsed.success) {
+        throw validationError('action', 'Please correct the highlighted fields.', fieldErrorsOf(parsed.error));
+      }
+      const principal = await resolvePrincipal();
+      if (spec.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
+      return { ok: true, data: await spec.handler(parsed.data, principal) };
+    } catch (error) {
+      const problem = toProblemDetails(error);
+      if (problem.status >= 500) logEvent('error', 'action failed', { error, action: spec.id });
+      return {
+        ok: false,
+        code: problem.code,
+        message: problem.detail,
+        ...(problem.errors ? { fields: problem.errors } : {}),
+      };
+    }
+  };
+}

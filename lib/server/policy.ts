@@ -1,0 +1,62 @@
+import 'server-only';
+
+/**
+ * The one policy table: which lab role may take which action. Every service and route asks `can()` here;
+ * nothing else decides who may do what.
+ */
+
+export const ROLES = ['owner', 'designer', 'experimenter', 'reviewer'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  owner: 'Owner',
+  designer: 'Designer',
+  experimenter: 'Experimenter',
+  reviewer: 'Reviewer',
+};
+
+const ALL: readonly Role[] = ROLES;
+const OWNER: readonly Role[] = ['owner'];
+const DESIGN: readonly Role[] = ['owner', 'designer'];
+const EXPERIMENT: readonly Role[] = ['owner', 'experimenter'];
+const BOUNDARY: readonly Role[] = ['owner', 'designer', 'experimenter'];
+const DECIDE: readonly Role[] = ['owner', 'reviewer'];
+
+export const POLICY = {
+  'lab:read': ALL,
+  'lab:update': OWNER,
+  'audit:read': ALL,
+  'members:read': ALL,
+  'members:manage': OWNER,
+  'tokens:manage': OWNER,
+  'seed:read': ALL,
+  'seed:write': DESIGN,
+  'space:read': ALL,
+  'space:write': DESIGN,
+  'boundary:write': BOUNDARY,
+  'edition:read': ALL,
+  'edition:freeze': DESIGN,
+  'edition:submit': DESIGN,
+  'edition:decide': DECIDE,
+  'edition:comment': ALL,
+  'profile:read': ALL,
+  'profile:write': BOUNDARY,
+  'pack:read': ALL,
+  'pack:create': EXPERIMENT,
+  'study:read': ALL,
+  'study:write': EXPERIMENT,
+  'runorder:read': ALL,
+  'runorder:write': EXPERIMENT,
+} as const satisfies Record<string, readonly Role[]>;
+
+export type PolicyAction = keyof typeof POLICY;
+export const POLICY_ACTIONS = Object.keys(POLICY) as PolicyAction[];
+
+/** Whether `role` may take `action`. */
+export function can(role: Role, action: PolicyAction): boolean {
+  return (POLICY[action] as readonly Role[]).includes(role);
+}
+
+export function isRole(value: string): value is Role {
+  return (ROLES as readonly string[]).includes(value);
+}

@@ -1,0 +1,10 @@
+import type { Migration } from 'kysely';
+import * as m20261202040000 from './20261202040000_create_labs_and_audit_events';
+
+/**
+ * Every migration, by name, in order. Listed statically so the same set runs under tsx, vitest and the app
+ * (a test checks that every file in this folder is listed).
+ */
+export const MIGRATIONS: Record<string, Migration> = {
+  '20261202040000_create_labs_and_audit_events': m20261202040000,
+};

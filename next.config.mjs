@@ -1,0 +1,25 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  reactStrictMode: true,
+  poweredByHeader: false,
+  // Packages with Node-only internals stay outside the server bundle.
+  serverExternalPackages: ['pg', 'pg-boss', 'bcryptjs', 'nodemailer', 'paper'],
+  typedRoutes: false,
+  outputFileTracingRoot: import.meta.dirname,
+  // Headers every response carries, static files included; the CSP with its nonce is set per request in proxy.ts.
+  async headers() {
+    const headers = [
+      { key: 'X-Content-Type-Options', value: 'nosniff' },
+      { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
+      { key: 'X-Frame-Options', value: 'DENY' },
+      { key: 'Permissions-Policy', value: 'camera=(), microphone=(), geolocation=(), payment=()' },
+      { key: 'Cross-Origin-Opener-Policy', value: 'same-origin' },
+    ];
+    if (process.env.NODE_ENV === 'production') {
+      headers.push({ key: 'Strict-Transport-Security', value: 'max-age=63072000; includeSubDomains' });
+    }
+    return [{ source: '/:path*', headers }];
+  },
+};
+
+export default nextConfig;

@@ -1,0 +1,29 @@
+// The throwaway test cluster and the environment every test tier runs with.
+import { ensurePostgres } from './postgres.mjs';
+
+export const TEST_PG_PORT = Number(process.env.EPICYCLE_TEST_PG_PORT ?? 54339);
+export const E2E_PORT = Number(process.env.EPICYCLE_E2E_PORT ?? 3100);
+
+/**
+ * Starts the test cluster (wiped first when `fresh`) with one database for integration tests and one for e2e.
+ * Returns the environment for the tiers and a `stop`.
+ */
+export async function prepareTestEnvironment({ fresh }) {
+  const it = await ensurePostgres({ name: 'test', port: TEST_PG_PORT, database: 'epicycle_it', fresh });
+  const e2e = await ensurePostgres({ name: 'test', port: TEST_PG_PORT, database: 'epicycle_e2e' });
+  const appUrl = `http://127.0.0.1:${E2E_PORT}`;
+  const env = {
+    ...process.env,
+    EPICYCLE_ENV: 'local',
+    DATABASE_URL: it.url,
+    TEST_DATABASE_URL: it.url,
+    TEST_ADMIN_DATABASE_URL: it.adminUrl,
+    E2E_DATABASE_URL: e2e.url,
+    E2E_PORT: String(E2E_PORT),
+    APP_URL: appUrl,
+    NEXTAUTH_URL: appUrl,
+    PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1',
+    NEXT_TELEMETRY_DISABLED: '1',
+  };
+  return { env, e2eEnv: { ...env, DATABASE_URL: e2e.url }, stop: it.stop };
+}

@@ -1,0 +1,70 @@
+// `npm start` (and `npm run dev` with --dev): installs what is missing, starts PostgreSQL on loopback, migrates,
+// seeds the demo lab, and serves the app. Ctrl-C stops everything this script started.
+import { log } from './lib/log.mjs';
+import { ensurePostgres } from './lib/postgres.mjs';
+import { bin, ensureDependencies, runOrThrow, runTs, startService } from './lib/run.mjs';
+
+const isDev = process.argv.includes('--dev');
+const host = process.env.HOST ?? '127.0.0.1';
+const port = Number(process.env.PORT ?? 3000);
+const pgPort = Number(process.env.EPICYCLE_PG_PORT ?? 54329);
+
+const cleanups = [];
+let stopping = false;
+async function shutdown(code) {
+  if (stopping) return;
+  stopping = true;
+  log('start', 'stopping…');
+  for (const fn of cleanups.reverse()) {
+    try {
+      await fn();
+    } catch (e) {
+      log('start', `cleanup failed: ${e.message}`);
+    }
+  }
+  process.exit(code);
+}
+process.on('SIGINT', () => shutdown(0));
+process.on('SIGTERM', () => shutdown(0));
+
+try {
+  ensureDependencies();
+
+  const env = { ...process.env, EPICYCLE_ENV: process.env.EPICYCLE_ENV ?? 'local', NEXT_TELEMETRY_DISABLED: '1' };
+  if (!process.env.DATABASE_URL) {
+    const pg = await ensurePostgres({ name: 'dev', port: pgPort, database: 'epicycle' });
+    cleanups.push(() => pg.stop());
+    env.DATABASE_URL = pg.url;
+  }
+  // Every URL the app hands out comes from the host and port actually served.
+  const appUrl = process.env.APP_URL ?? `http://${host === '0.0.0.0' ? '127.0.0.1' : host}:${port}`;
+  env.APP_URL = appUrl;
+  env.NEXTAUTH_URL = appUrl;
+
+  await runTs('scripts/db-migrate.ts', env);
+  await runTs('scripts/db-seed.ts', env);
+
+  if (!isDev) {
+    log('start', 'building the app (next build)…');
+    await runOrThrow(bin('next'), ['build'], { env: { ...env, NODE_ENV: 'production' } });
+  }
+  const web = startService('web', bin('next'), [isDev ? 'dev' : 'start', '-H', host, '-p', String(port)], {
+    ...env,
+    NODE_ENV: isDev ? 'development' : 'production',
+  });
+  cleanups.push(() => web.kill('SIGTERM'));
+  web.on('exit', (code) => {
+    if (!stopping) {
+      log('start', `web server exited (${code}); stopping`);
+      shutdown(code ?? 1);
+    }
+  });
+
+  log('start', '');
+  log('start', `Epicycle is starting at ${appUrl}`);
+  log('start', `Health check:        ${appUrl}/api/health`);
+  log('start', 'Press Ctrl-C to stop everything started here.');
+} catch (error) {
+  console.error(`[start] ${error instanceof Error ? error.message : error}`);
+  await shutdown(1);
+}
