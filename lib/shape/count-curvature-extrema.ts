@@ -44,7 +44,7 @@ function descriptorCurvature(descriptor: ShapeDescriptor): Float64Array {
 }
 
 /** Stage: count the extrema of a cyclic sequence with hysteresis (maxima and minima alternate, so 2 × minima). */
-export function countCyclicExtrema(values: Float64Array): number {
+function countCyclicExtrema(values: Float64Array): number {
   const n = values.length;
   if (n < 3) return 0;
   let max = -Infinity, min = Infinity, meanMagnitude = 0, start = 0;
