@@ -116,7 +116,7 @@ export function parseSvgOutline(svgText: string, options: ParseSvgOptions = {}):
   const ys: number[] = [];
   for (const segment of path.segments) {
     const px = segment.point.x;
-    const py = sign * segment.point.y;
+    const py = sign * segment.point.y + 0; // + 0 turns −0 into 0
     const n = xs.length;
     if (n > 0 && xs[n - 1] === px && ys[n - 1] === py) continue;
     xs.push(px);
