@@ -42,27 +42,36 @@ function checkStarShaped(x: Float64Array, y: Float64Array, cx: number, cy: numbe
   return angles;
 }
 
-/** Stage: r(θ_j) at θ_j = 2πj/M, by intersecting each ray with the edge whose angular range holds it. */
+/**
+ * Stage: r(θ_j) at θ_j = 2πj/M, by intersecting each ray with the edge whose angular range holds it. Edge i
+ * owns the grid indices [b_i, b_{i+1}) with b_i = ⌈A_i/h⌉ for the unwrapped vertex angles A_i and
+ * b_N = b_0 + M, so every index is written exactly once whatever the rounding of the angles.
+ */
 function sampleRadius(x: Float64Array, y: Float64Array, cx: number, cy: number, angles: Float64Array, samples: number): Float64Array {
   const n = x.length;
   const h = (2 * Math.PI) / samples;
+  const bounds = new Float64Array(n + 1);
+  let unwrapped = angles[0] as number;
+  bounds[0] = Math.ceil(unwrapped / h);
+  for (let i = 1; i < n; i++) {
+    let sweep = (angles[i] as number) - (angles[i - 1] as number);
+    if (sweep <= 0) sweep += 2 * Math.PI;
+    unwrapped += sweep;
+    bounds[i] = Math.min(Math.ceil(unwrapped / h), (bounds[0] as number) + samples);
+  }
+  bounds[n] = (bounds[0] as number) + samples;
   const radius = new Float64Array(samples);
-  let start = angles[0] as number;
   for (let i = 0; i < n; i++) {
     const j = i + 1 === n ? 0 : i + 1;
-    let sweep = (angles[j] as number) - (angles[i] as number);
-    if (sweep <= 0) sweep += 2 * Math.PI;
-    const end = j === 0 ? (angles[0] as number) + 2 * Math.PI : start + sweep;
     const ax = (x[i] as number) - cx;
     const ay = (y[i] as number) - cy;
     const ex = (x[j] as number) - (x[i] as number);
     const ey = (y[j] as number) - (y[i] as number);
     const numerator = ax * ey - ay * ex;
-    for (let m = Math.ceil(start / h); m < Math.ceil(end / h); m++) {
+    for (let m = bounds[i] as number; m < (bounds[i + 1] as number); m++) {
       const theta = m * h;
       radius[((m % samples) + samples) % samples] = numerator / (Math.cos(theta) * ey - Math.sin(theta) * ex);
     }
-    start = end;
   }
   return radius;
 }
