@@ -17,11 +17,15 @@ function getScratch(size: number): Scratch {
   return scratch;
 }
 
-/** Adds c·N to bin k mod N of an interleaved spectrum (the factor N undoes fft.js's 1/N in the inverse). */
+/**
+ * Adds the conjugate of c to bin k mod N of an interleaved spectrum. The synthesis sum Σ c_k e^{+2πijk/N} is
+ * computed as the conjugate of a forward transform of the conjugated coefficients, which skips the 1/N pass
+ * of fft.js's inverse transform.
+ */
 function addBin(spectrum: Float64Array, size: number, k: number, re: number, im: number): void {
   const bin = ((k % size) + size) % size;
-  spectrum[2 * bin] = (spectrum[2 * bin] as number) + size * re;
-  spectrum[2 * bin + 1] = (spectrum[2 * bin + 1] as number) + size * im;
+  spectrum[2 * bin] = (spectrum[2 * bin] as number) + re;
+  spectrum[2 * bin + 1] = (spectrum[2 * bin + 1] as number) - im;
 }
 
 /** Fills the spectrum of z(t) = x + iy, using the same coefficient rules as `toComplexHarmonics`. */
@@ -48,20 +52,20 @@ function fillSpectrum(descriptor: ShapeDescriptor, spectrum: Float64Array, size:
 }
 
 /**
- * Samples a descriptor at t_j = 2πj/N with one inverse complex FFT (fft.js, radix-4): the harmonics are
- * placed in bins k mod N of the spectrum of z = x + iy, so x_j + iy_j = Σ c_k e^{2πijk/N}. N must be a power
- * of two ≥ 4. No validation and no orientation change: callers use `synthesizeContour`.
+ * Samples a descriptor at t_j = 2πj/N with one complex FFT (fft.js, radix-4): the harmonics are placed in
+ * bins k mod N of the spectrum of z = x + iy, so x_j + iy_j = Σ c_k e^{2πijk/N} (an inverse DFT without the
+ * 1/N, done as conj(FFT(conj c))). N must be a power of two ≥ 4. No validation and no orientation change: callers use `synthesizeContour`.
  */
 export function synthesizeFft(descriptor: ShapeDescriptor, size: number): Contour {
   const { spectrum, signal } = getScratch(size);
   spectrum.fill(0);
   fillSpectrum(descriptor, spectrum, size);
-  getFftPlan(size).inverseTransform(signal, spectrum);
+  getFftPlan(size).transform(signal, spectrum);
   const x = new Float64Array(size);
   const y = new Float64Array(size);
   for (let j = 0; j < size; j++) {
     x[j] = signal[2 * j] as number;
-    y[j] = signal[2 * j + 1] as number;
+    y[j] = -(signal[2 * j + 1] as number);
   }
   return { x, y };
 }
