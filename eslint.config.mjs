@@ -22,6 +22,8 @@ const config = [
   {
     rules: {
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      // The React Compiler is not enabled, so its memoisation warnings about libraries do not apply.
+      'react-hooks/incompatible-library': 'off',
     },
   },
   {

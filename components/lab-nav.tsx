@@ -1,7 +1,10 @@
 import Link from 'next/link';
 
 /** The lab's sections, in the order of the job. Entries join as their pages land. */
-export const LAB_SECTIONS = [{ segment: '', label: 'Overview' }] as const;
+export const LAB_SECTIONS = [
+  { segment: '', label: 'Overview' },
+  { segment: 'settings/members', label: 'Members' },
+] as const;
 
 export function LabNav({ lab }: { lab: string }) {
   return (
@@ -12,6 +15,7 @@ export function LabNav({ lab }: { lab: string }) {
             <Link
               href={`/labs/${lab}${s.segment ? `/${s.segment}` : ''}`}
               className="-ml-px block border-l border-transparent py-1.5 pl-4 text-graphite-soft hover:border-accent hover:text-graphite"
+              data-testid={`nav-${s.label.toLowerCase()}`}
             >
               {s.label}
             </Link>

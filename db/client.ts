@@ -17,7 +17,18 @@ export function createDb(connectionString: string, max = 10): Kysely<Database> {
   pool.on('error', (error) => {
     process.stderr.write(`[db] idle client error: ${error.message}\n`);
   });
-  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  pools.set(db, pool);
+  return db;
+}
+
+const pools = new WeakMap<Kysely<Database>, pg.Pool>();
+
+/** The pg pool a handle made by `createDb` runs on. */
+export function poolOf(db: Kysely<Database>): pg.Pool {
+  const pool = pools.get(db);
+  if (!pool) throw new Error('handle was not made by createDb');
+  return pool;
 }
 
 export type Db = Kysely<Database>;

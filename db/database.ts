@@ -1,4 +1,5 @@
 import type { ColumnType, Generated, Insertable, Selectable } from 'kysely';
+import type { Role } from '@/lib/schemas/roles';
 
 /** Timestamps are written by the database and read as Date objects. */
 type CreatedAt = ColumnType<Date, never, never>;
@@ -21,12 +22,69 @@ export interface AuditEventsTable {
   created_at: CreatedAt;
 }
 
+
+export interface UsersTable {
+  id: Generated<string>;
+  email: string;
+  name: string;
+  password_hash: string | null;
+  email_verified_at: Date | null;
+  session_version: Generated<number>;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
+export interface MembershipsTable {
+  lab_id: string;
+  user_id: string;
+  role: Role;
+  created_at: Generated<Date>;
+}
+
+export interface InvitationsTable {
+  id: Generated<string>;
+  lab_id: string;
+  email: string;
+  role: Role;
+  token_hash: string;
+  invited_by: string | null;
+  created_at: Generated<Date>;
+  expires_at: Date;
+  sent_at: Generated<Date>;
+  accepted_at: Date | null;
+  accepted_by: string | null;
+  revoked_at: Date | null;
+}
+
+export interface VerificationTokensTable {
+  identifier: string;
+  token: string;
+  expires: Date;
+}
+
+export interface PasswordResetTokensTable {
+  id: Generated<string>;
+  user_id: string;
+  token_hash: string;
+  created_at: Generated<Date>;
+  expires_at: Date;
+  used_at: Date | null;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
   audit_events: AuditEventsTable;
+  users: UsersTable;
+  memberships: MembershipsTable;
+  invitations: InvitationsTable;
+  verification_tokens: VerificationTokensTable;
+  password_reset_tokens: PasswordResetTokensTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
 export type NewLabRow = Insertable<LabsTable>;
 export type AuditEventRow = Selectable<AuditEventsTable>;
+export type UserRow = Selectable<UsersTable>;
+export type MembershipRow = Selectable<MembershipsTable>;
+export type InvitationRow = Selectable<InvitationsTable>;

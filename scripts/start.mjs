@@ -1,8 +1,11 @@
 // `npm start` (and `npm run dev` with --dev): installs what is missing, starts PostgreSQL on loopback, migrates,
 // seeds the demo lab, and serves the app. Ctrl-C stops everything this script started.
 import { log } from './lib/log.mjs';
+import { startMailCatcher } from './lib/mail.mjs';
 import { ensurePostgres } from './lib/postgres.mjs';
 import { bin, ensureDependencies, runOrThrow, runTs, startService } from './lib/run.mjs';
+
+import demo from '../db/demo-users.json' with { type: 'json' };
 
 const isDev = process.argv.includes('--dev');
 const host = process.env.HOST ?? '127.0.0.1';
@@ -40,6 +43,12 @@ try {
   const appUrl = process.env.APP_URL ?? `http://${host === '0.0.0.0' ? '127.0.0.1' : host}:${port}`;
   env.APP_URL = appUrl;
   env.NEXTAUTH_URL = appUrl;
+  if (!process.env.SMTP_URL) {
+    const mail = await startMailCatcher({ smtpPort: 2525, httpPort: 2580 });
+    cleanups.push(() => mail.stop());
+    env.SMTP_URL = mail.smtpUrl;
+    env.MAIL_CATCHER_URL = mail.httpUrl;
+  }
 
   await runTs('scripts/db-migrate.ts', env);
   await runTs('scripts/db-seed.ts', env);
@@ -63,6 +72,9 @@ try {
   log('start', '');
   log('start', `Epicycle is starting at ${appUrl}`);
   log('start', `Health check:        ${appUrl}/api/health`);
+  if (env.MAIL_CATCHER_URL) log('start', `Dev mailbox:         ${appUrl}/dev/mailbox`);
+  log('start', `Demo sign-ins (password for all: ${demo.password}):`);
+  for (const u of demo.users) log('start', `  ${u.role.padEnd(13)} ${u.email}`);
   log('start', 'Press Ctrl-C to stop everything started here.');
 } catch (error) {
   console.error(`[start] ${error instanceof Error ? error.message : error}`);

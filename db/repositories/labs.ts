@@ -33,3 +33,9 @@ export async function listLabsByIds(
   }
   return q.orderBy('created_at', 'desc').orderBy('id', 'desc').limit(page.limit + 1).execute();
 }
+
+export async function getLabById(db: Handle, id: string): Promise<LabRow> {
+  const lab = await db.selectFrom('labs').selectAll().where('id', '=', id).executeTakeFirst();
+  if (!lab) throw notFound('lab', 'No such lab.');
+  return lab;
+}

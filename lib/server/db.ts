@@ -1,5 +1,6 @@
 import 'server-only';
-import { createDb, type Db } from '@/db/client';
+import type pg from 'pg';
+import { createDb, poolOf, type Db } from '@/db/client';
 import { getEnv } from './env';
 
 // One pool per server process; kept on globalThis so dev-mode module reloads do not leak pools.
@@ -12,4 +13,9 @@ export function getDb(): Db {
     holder.__epicycleDb = createDb(env.DATABASE_URL, env.DATABASE_POOL_MAX);
   }
   return holder.__epicycleDb;
+}
+
+/** The pg pool under the handle, for libraries that speak to pg directly (the rate limiter). */
+export function getPool(): pg.Pool {
+  return poolOf(getDb());
 }

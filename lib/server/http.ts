@@ -11,7 +11,9 @@ import {
 } from '@/lib/errors';
 import { getRequestPrincipal, type Principal } from './auth/principal';
 import { logEvent } from './log';
+import { getDb } from './db';
 import type { PolicyAction } from './policy';
+import { authorize, resolveLabActor, type LabActor } from './services/access';
 
 /**
  * The route and action wrappers, and the one registry of API routes. Every route declares its method, path,
@@ -32,6 +34,8 @@ export interface RouteContext<P, Q, B> {
   body: B;
   principal: Principal;
   request: Request;
+  /** The caller as a member of the route's lab (lab routes only; already authorised for the route's action). */
+  labActor: () => LabActor;
 }
 
 export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z.ZodType, R extends z.ZodType> {
@@ -164,8 +168,9 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
 
       const principal = await getRequestPrincipal(request);
       if (route.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
+      const actor = await actorFor(route.access, principal, params);
 
-      const result = await route.handler({ params, query, body, principal, request });
+      const result = await route.handler({ params, query, body, principal, request, labActor: labActorGetter(actor, route.id) });
       if (result instanceof Response) return result;
       const status = route.successStatus ?? 200;
       if (status === 204) return new Response(null, { status });
@@ -174,6 +179,22 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
     } catch (error) {
       return problemResponse(error, instance);
     }
+  };
+}
+
+async function actorFor(access: Access, principal: Principal, params: Record<string, unknown>): Promise<LabActor | undefined> {
+  if (access.kind !== 'lab') return undefined;
+  const slug = params.lab;
+  if (typeof slug !== 'string') throw new Error('a lab route needs a {lab} path parameter');
+  const actor = await resolveLabActor(getDb(), principal, slug);
+  authorize(actor, access.action);
+  return actor;
+}
+
+function labActorGetter(actor: LabActor | undefined, routeId: string): () => LabActor {
+  return () => {
+    if (!actor) throw new Error(`route ${routeId} is not a lab route`);
+    return actor;
   };
 }
 

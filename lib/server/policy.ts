@@ -1,19 +1,12 @@
 import 'server-only';
+import { ROLES, type Role } from '@/lib/schemas/roles';
+
+export { ROLES, ROLE_LABELS, type Role } from '@/lib/schemas/roles';
 
 /**
  * The one policy table: which lab role may take which action. Every service and route asks `can()` here;
  * nothing else decides who may do what.
  */
-
-export const ROLES = ['owner', 'designer', 'experimenter', 'reviewer'] as const;
-export type Role = (typeof ROLES)[number];
-
-export const ROLE_LABELS: Record<Role, string> = {
-  owner: 'Owner',
-  designer: 'Designer',
-  experimenter: 'Experimenter',
-  reviewer: 'Reviewer',
-};
 
 const ALL: readonly Role[] = ROLES;
 const OWNER: readonly Role[] = ['owner'];

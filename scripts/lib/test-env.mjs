@@ -1,4 +1,5 @@
 // The throwaway test cluster and the environment every test tier runs with.
+import { startMailCatcher } from './mail.mjs';
 import { ensurePostgres } from './postgres.mjs';
 
 export const TEST_PG_PORT = Number(process.env.EPICYCLE_TEST_PG_PORT ?? 54339);
@@ -11,6 +12,7 @@ export const E2E_PORT = Number(process.env.EPICYCLE_E2E_PORT ?? 3100);
 export async function prepareTestEnvironment({ fresh }) {
   const it = await ensurePostgres({ name: 'test', port: TEST_PG_PORT, database: 'epicycle_it', fresh });
   const e2e = await ensurePostgres({ name: 'test', port: TEST_PG_PORT, database: 'epicycle_e2e' });
+  const mail = await startMailCatcher({ smtpPort: 2535, httpPort: 2590 });
   const appUrl = `http://127.0.0.1:${E2E_PORT}`;
   const env = {
     ...process.env,
@@ -22,8 +24,16 @@ export async function prepareTestEnvironment({ fresh }) {
     E2E_PORT: String(E2E_PORT),
     APP_URL: appUrl,
     NEXTAUTH_URL: appUrl,
+    SMTP_URL: mail.smtpUrl,
+    MAIL_CATCHER_URL: mail.httpUrl,
+    // Every test comes from 127.0.0.1, so the per-IP sign-in limit is raised; the per-e-mail one is tested.
+    SIGNIN_LIMIT_PER_IP: '10000',
     PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1',
     NEXT_TELEMETRY_DISABLED: '1',
   };
-  return { env, e2eEnv: { ...env, DATABASE_URL: e2e.url }, stop: it.stop };
+  const stop = () => {
+    mail.stop();
+    it.stop();
+  };
+  return { env, e2eEnv: { ...env, DATABASE_URL: e2e.url }, stop };
 }

@@ -1,5 +1,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test } from '@playwright/test';
+import { SignInPage } from './pages/auth-pages';
+import { DEMO_PASSWORD, demoUser } from './support/demo';
 
 test('the landing page says what Epicycle does and passes an axe scan', async ({ page }) => {
   const response = await page.goto('/');
@@ -49,8 +51,11 @@ test('the health route checks the database', async ({ request }) => {
   expect(body).toMatchObject({ status: 'ok', database: { ok: true } });
 });
 
-test('the demo lab opens in the signed-in shell', async ({ page }) => {
+test('a lab page asks for sign-in, then opens the signed-in shell', async ({ page }) => {
   await page.goto('/labs/halden-form');
+  await expect(page).toHaveURL(/\/sign-in\?callbackUrl=/);
+  await new SignInPage(page).signIn(demoUser('owner').email, DEMO_PASSWORD);
+  await expect(page).toHaveURL(/\/labs\/halden-form$/);
   await expect(page.getByTestId('lab-name')).toHaveText('Halden Form Perception Group');
   await expect(page.getByRole('navigation', { name: 'Lab sections' })).toBeVisible();
 });

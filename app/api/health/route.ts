@@ -1,4 +1,4 @@
-import { getHealth } from '@/lib/server/api/health';
+import { getHealth } from '@/lib/server/api';
 import { toHandler } from '@/lib/server/http';
 
 export const dynamic = 'force-dynamic';

@@ -1,3 +1,5 @@
 import 'server-only';
 // Importing every route module fills the registry; the OpenAPI document and the authorisation tests read it.
 export * from './health';
+export * from './account';
+export * from './labs';

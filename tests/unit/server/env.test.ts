@@ -10,7 +10,7 @@ describe('configuration', () => {
   });
 
   it('in production fails naming every missing variable', () => {
-    expect(() => parseEnv({ NODE_ENV: 'production' })).toThrow(/DATABASE_URL, APP_URL, AUTH_SECRET/);
+    expect(() => parseEnv({ NODE_ENV: 'production' })).toThrow(/DATABASE_URL, APP_URL, AUTH_SECRET, SMTP_URL/);
     expect(() => parseEnv({ EPICYCLE_ENV: 'production', DATABASE_URL: 'postgres://u@db/x', APP_URL: 'https://e.example' })).toThrow(/AUTH_SECRET/);
   });
 
@@ -25,7 +25,11 @@ describe('configuration', () => {
       DATABASE_URL: 'postgres://u:p@db.example/epicycle',
       APP_URL: 'https://epicycle.example',
       AUTH_SECRET: 'x'.repeat(40),
+      SMTP_URL: 'smtps://mail.example:465',
+      MAIL_CATCHER_URL: 'http://127.0.0.1:2580',
     });
     expect(env.EPICYCLE_ENV).toBe('production');
+    // The dev mailbox is never on in production.
+    expect(env.MAIL_CATCHER_URL).toBeUndefined();
   });
 });

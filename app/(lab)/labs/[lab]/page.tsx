@@ -1,14 +1,14 @@
-import { getLabBySlug } from '@/db/repositories/labs';
-import { getDb } from '@/lib/server/db';
+import { ROLE_LABELS, ROLE_SUMMARIES } from '@/lib/schemas/roles';
+import { requireLabPageActor } from '@/lib/server/page-context';
 
 export default async function LabOverviewPage({ params }: { params: Promise<{ lab: string }> }) {
-  const { lab: slug } = await params;
-  const lab = await getLabBySlug(getDb(), slug);
+  const { lab } = await params;
+  const { actor, user } = await requireLabPageActor(lab);
   return (
     <section>
-      <h1 className="text-2xl font-semibold">{lab.name}</h1>
+      <h1 className="text-2xl font-semibold" data-testid="lab-title">{actor.labName}</h1>
       <p className="mt-2 text-graphite-soft">
-        Lab created <span className="tabular">{lab.created_at.toISOString().slice(0, 10)}</span>.
+        Signed in as {user.name}, {ROLE_LABELS[actor.role]}: {ROLE_SUMMARIES[actor.role].toLowerCase()}.
       </p>
     </section>
   );

@@ -1,0 +1,13 @@
+import type { ReactNode } from 'react';
+import { SiteHeader } from '@/components/site-header';
+
+export default function AuthLayout({ children }: { children: ReactNode }) {
+  return (
+    <>
+      <SiteHeader />
+      <main id="main" className="mx-auto max-w-md px-6 py-16">
+        {children}
+      </main>
+    </>
+  );
+}

@@ -1,0 +1,6 @@
+import { createLabInvitation, listLabInvitations } from '@/lib/server/api';
+import { toHandler } from '@/lib/server/http';
+
+export const dynamic = 'force-dynamic';
+export const GET = toHandler(listLabInvitations);
+export const POST = toHandler(createLabInvitation);

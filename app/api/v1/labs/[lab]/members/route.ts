@@ -1,0 +1,6 @@
+import { joinLab, listLabMembers } from '@/lib/server/api';
+import { toHandler } from '@/lib/server/http';
+
+export const dynamic = 'force-dynamic';
+export const GET = toHandler(listLabMembers);
+export const POST = toHandler(joinLab);
