@@ -2,11 +2,12 @@ import { SHAPE_LIMITS } from './shape-limits';
 import type { DescriptorFamily } from './types';
 
 /**
- * Measured with scripts/bench-shape.ts at N = 1024: an inverse FFT (≈ 22 µs with de-interleaving) costs as
- * much as ≈ 5 direct radial terms (≈ 3.4 µs each) on top of the fixed 5 µs, i.e. 0.5 terms per log2 N.
- * Elliptic and complex terms do about twice the arithmetic of a radial one.
+ * Measured at N = 1024 (scripts/bench-shape.ts and an interleaved A/B run): the direct radial kernel sums four
+ * terms per pass and beats the FFT up to four terms (~72k vs ~55k shapes/s); from five terms it needs a second
+ * pass and the FFT wins (~45k vs ~50k). So the FFT is worth about 4.5 terms at log2 N = 10. Elliptic and
+ * complex terms do about twice the arithmetic of a radial one.
  */
-const FFT_COST_IN_TERMS_PER_LOG2 = 0.5;
+const FFT_COST_IN_TERMS_PER_LOG2 = 0.45;
 const TERM_WEIGHT: Readonly<Record<DescriptorFamily, number>> = { radial: 1, elliptic: 2, complex: 2 };
 
 /** True for the FFT sizes fft.js is used with: powers of two from 64 to 8192. */
