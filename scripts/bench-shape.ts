@@ -29,6 +29,8 @@ function mulberry32(seed: number): () => number {
 const SEED = 4242;
 const POOL_SIZE = 256;
 const SAMPLES = 1024;
+/** Shapes synthesised before timing, so the JIT has settled on optimised code. */
+const WARMUP_SHAPES = 20_000;
 
 /** Radial shapes with `harmonics` non-zero terms at distinct k in 2…(2·harmonics + 1), Σ|A| < 0.5. */
 function radialPool(harmonics: number): RadialDescriptor[] {
@@ -65,7 +67,7 @@ function ellipticPool(harmonics: number): EllipticDescriptor[] {
 /** Synthesises `shapes` contours from the pool; returns seconds and a checksum that keeps the work alive. */
 function runSynthesis(pool: readonly (RadialDescriptor | EllipticDescriptor)[], shapes: number, method: SynthesisMethod, checkSimple: boolean): { seconds: number; checksum: number } {
   let checksum = 0;
-  const warmup = Math.min(2000, shapes);
+  const warmup = Math.min(WARMUP_SHAPES, shapes);
   for (let i = 0; i < warmup; i++) checksum += synthesizeContour(pool[i % pool.length] as RadialDescriptor, SAMPLES, { method, checkSimple }).x[7] as number;
   const start = performance.now();
   for (let i = 0; i < shapes; i++) {
@@ -106,7 +108,12 @@ function runWorker(job: WorkerJob): void {
 }
 
 async function threadedCase(threads: number, harmonics: number, shapesPerThread: number): Promise<void> {
-  const workers = Array.from({ length: threads }, () => new Worker(new URL(import.meta.url), { execArgv: ['--import', 'tsx'], workerData: { harmonics, shapes: shapesPerThread } satisfies WorkerJob }));
+  // Workers do not inherit the tsx loader, so each one registers it and then imports this file.
+  const bootstrap = `const { register } = await import(${JSON.stringify(import.meta.resolve('tsx/esm/api'))}); register(); await import(${JSON.stringify(import.meta.url)});`;
+  const workers = Array.from(
+    { length: threads },
+    () => new Worker(new URL(`data:text/javascript,${encodeURIComponent(bootstrap)}`), { workerData: { harmonics, shapes: shapesPerThread } satisfies WorkerJob }),
+  );
   await Promise.all(workers.map((w) => new Promise<void>((resolve) => w.once('message', () => resolve()))));
   const start = performance.now();
   await Promise.all(workers.map((w) => new Promise<void>((resolve) => {
