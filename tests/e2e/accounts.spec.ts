@@ -100,3 +100,27 @@ test('the sign-in and members pages pass an axe scan', async ({ page }) => {
   await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: 'test-results/screens/members.png', fullPage: true });
 });
+
+test('a sign-in link by e-mail signs in an existing account; an unknown address sees the same page', async ({ page }) => {
+  const reviewer = demoUser('reviewer');
+  await page.goto('/sign-in');
+  await page.getByRole('tab', { name: 'E-mail me a link' }).click();
+  const form = page.getByTestId('sign-in-link-form');
+  await form.getByLabel('E-mail').fill(reviewer.email);
+  const before = Date.now();
+  await form.getByRole('button').click();
+  await expect(page.getByTestId('check-email')).toBeVisible();
+
+  const link = await waitForMailLink(reviewer.email, { after: 0, timeoutMs: 15_000, sentAfter: before });
+  await page.goto(link);
+  await expect(page).toHaveURL(/\/labs\/halden-form/);
+  await expect(page.getByTestId('my-role')).toHaveText('Reviewer');
+
+  const ghost = `ghost-${unique()}@e2e.example`;
+  await page.context().clearCookies();
+  await page.goto('/sign-in');
+  await page.getByRole('tab', { name: 'E-mail me a link' }).click();
+  await page.getByTestId('sign-in-link-form').getByLabel('E-mail').fill(ghost);
+  await page.getByTestId('sign-in-link-form').getByRole('button').click();
+  await expect(page.getByTestId('check-email')).toBeVisible();
+});
