@@ -1,5 +1,7 @@
 // Benchmark of the contour engine (`npm run bench:shape`). Prints one JSON line per case. A script, not a test:
-// figures depend on the machine and its load; run it alone.
+// figures depend on the machine and its load; run it alone. `seconds` is wall time; `cpu_seconds` is the
+// process's CPU time over the same span (it includes V8's garbage-collector threads), which shows when a
+// busy machine, rather than the code, slowed a run down.
 import { availableParallelism } from 'node:os';
 import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
 import {
@@ -69,14 +71,17 @@ function ellipticPool(harmonics: number): EllipticDescriptor[] {
  * Callers run it once untimed first: a timed loop inside the first call would run in on-stack-replacement
  * code, measured ~1.5× slower than the fully optimised function.
  */
-function runSynthesis(pool: readonly (RadialDescriptor | EllipticDescriptor)[], shapes: number, method: SynthesisMethod, checkSimple: boolean): { seconds: number; checksum: number } {
+function runSynthesis(pool: readonly (RadialDescriptor | EllipticDescriptor)[], shapes: number, method: SynthesisMethod, checkSimple: boolean): { seconds: number; cpuSeconds: number; checksum: number } {
   let checksum = 0;
+  const cpu = process.cpuUsage();
   const start = performance.now();
   for (let i = 0; i < shapes; i++) {
     const contour = synthesizeContour(pool[i % pool.length] as RadialDescriptor, SAMPLES, { method, checkSimple });
     checksum += (contour.x[i % SAMPLES] as number) + (contour.y[(i * 7) % SAMPLES] as number);
   }
-  return { seconds: (performance.now() - start) / 1000, checksum };
+  const seconds = (performance.now() - start) / 1000;
+  const used = process.cpuUsage(cpu);
+  return { seconds, cpuSeconds: (used.user + used.system) / 1e6, checksum };
 }
 
 function print(record: Record<string, string | number | boolean>): void {
@@ -86,8 +91,8 @@ function print(record: Record<string, string | number | boolean>): void {
 function synthesisCase(name: string, family: 'radial' | 'elliptic', harmonics: number, shapes: number, method: SynthesisMethod, checkSimple = false): void {
   const pool = family === 'radial' ? radialPool(harmonics) : ellipticPool(harmonics);
   runSynthesis(pool, Math.min(WARMUP_SHAPES, shapes), method, checkSimple);
-  const { seconds } = runSynthesis(pool, shapes, method, checkSimple);
-  print({ name, family, harmonics, method, shapes, samples: SAMPLES, threads: 1, seconds: round(seconds), shapes_per_s: Math.round(shapes / seconds) });
+  const { seconds, cpuSeconds } = runSynthesis(pool, shapes, method, checkSimple);
+  print({ name, family, harmonics, method, shapes, samples: SAMPLES, threads: 1, seconds: round(seconds), cpu_seconds: round(cpuSeconds), shapes_per_s: Math.round(shapes / seconds) });
 }
 
 function round(value: number): number {
