@@ -3,6 +3,7 @@ import Link from 'next/link';
 /** The lab's sections, in the order of the job. Entries join as their pages land. */
 export const LAB_SECTIONS = [
   { segment: '', label: 'Overview' },
+  { segment: 'seed-shapes', label: 'Seed shapes' },
   { segment: 'settings/members', label: 'Members' },
 ] as const;
 
@@ -15,7 +16,7 @@ export function LabNav({ lab }: { lab: string }) {
             <Link
               href={`/labs/${lab}${s.segment ? `/${s.segment}` : ''}`}
               className="-ml-px block border-l border-transparent py-1.5 pl-4 text-graphite-soft hover:border-accent hover:text-graphite"
-              data-testid={`nav-${s.label.toLowerCase()}`}
+              data-testid={`nav-${s.label.toLowerCase().replace(/ /g, '-')}`}
             >
               {s.label}
             </Link>

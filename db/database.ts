@@ -71,6 +71,23 @@ export interface PasswordResetTokensTable {
   used_at: Date | null;
 }
 
+export interface SeedShapesTable {
+  id: Generated<string>;
+  lab_id: string;
+  name: string;
+  family: 'radial' | 'elliptic' | 'complex';
+  harmonic_count: number;
+  /** A descriptor as in lib/shape (validated by lib/schemas/descriptor.ts on every write). */
+  descriptor: ColumnType<unknown, string, string>;
+  /** Where it came from: `{ kind: 'editor' }`, `{ kind: 'preset', preset }` or `{ kind: 'upload', ... }`. */
+  origin: ColumnType<Record<string, unknown>, string, string>;
+  version: Generated<number>;
+  created_by: string | null;
+  updated_by: string | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
@@ -80,6 +97,7 @@ export interface Database {
   invitations: InvitationsTable;
   verification_tokens: VerificationTokensTable;
   password_reset_tokens: PasswordResetTokensTable;
+  seed_shapes: SeedShapesTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -88,3 +106,4 @@ export type AuditEventRow = Selectable<AuditEventsTable>;
 export type UserRow = Selectable<UsersTable>;
 export type MembershipRow = Selectable<MembershipsTable>;
 export type InvitationRow = Selectable<InvitationsTable>;
+export type SeedShapeRow = Selectable<SeedShapesTable>;

@@ -5,6 +5,8 @@ import demo from './demo-users.json' with { type: 'json' };
 import { findLabBySlug, insertLab } from './repositories/labs';
 import { findMembership, insertMembership } from './repositories/memberships';
 import { findUserByEmail, insertUser } from './repositories/users';
+import { insertSeedShape, listSeedShapes } from './repositories/seed-shapes';
+import { validateDescriptor, type ShapeDescriptor } from '@/lib/shape';
 
 /**
  * The demo lab, an invented scenario: the Halden Form Perception Group is preparing a study on how people
@@ -13,6 +15,34 @@ import { findUserByEmail, insertUser } from './repositories/users';
 export const DEMO_LAB = { slug: 'halden-form', name: 'Halden Form Perception Group' } as const;
 export const DEMO_PASSWORD: string = demo.password;
 export const DEMO_USERS = demo.users as readonly { role: Role; name: string; email: string }[];
+
+/** The demo lab's two seed shapes: invented outlines for its category-learning study. */
+export const DEMO_SEED_SHAPES: readonly { name: string; descriptor: ShapeDescriptor }[] = [
+  {
+    name: 'Harbour pebble',
+    descriptor: {
+      family: 'radial',
+      baseRadius: 1,
+      terms: [
+        { k: 2, amplitude: 0.1, phase: 0.35 },
+        { k: 3, amplitude: 0.14, phase: 1.2 },
+        { k: 5, amplitude: 0.05, phase: -0.8 },
+      ],
+    },
+  },
+  {
+    name: 'Fjord bean',
+    descriptor: {
+      family: 'elliptic',
+      center: [0, 0],
+      terms: [
+        { n: 1, a: 1.15, b: 0, c: 0, d: 0.85 },
+        { n: 2, a: 0, b: 0.06, c: 0.2, d: 0 },
+        { n: 3, a: 0.05, b: 0.01, c: -0.01, d: 0.04 },
+      ],
+    },
+  },
+];
 
 /** bcrypt cost for demo accounts (the same as real ones). */
 const DEMO_BCRYPT_COST = 12;
@@ -33,6 +63,20 @@ export async function seedDemo(db: Db): Promise<string> {
         created.push(u.email);
       }
       if (!(await findMembership(trx, lab.id, user.id))) await insertMembership(trx, lab.id, user.id, u.role);
+    }
+    const designer = await findUserByEmail(trx, DEMO_USERS.find((u) => u.role === 'designer')!.email);
+    const existing = new Set((await listSeedShapes(trx, lab.id, { limit: 100 })).map((s) => s.name));
+    for (const shape of DEMO_SEED_SHAPES) {
+      if (existing.has(shape.name)) continue;
+      validateDescriptor(shape.descriptor);
+      await insertSeedShape(trx, lab.id, designer!.id, {
+        name: shape.name,
+        family: shape.descriptor.family,
+        harmonicCount: shape.descriptor.terms.length,
+        descriptor: shape.descriptor,
+        origin: { kind: 'editor' },
+      });
+      created.push(`seed shape ${shape.name}`);
     }
   });
   return created.length ? `demo lab "${DEMO_LAB.name}": created ${created.join(', ')}` : `demo lab "${DEMO_LAB.name}" already present`;

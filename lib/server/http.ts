@@ -36,6 +36,8 @@ export interface RouteContext<P, Q, B> {
   request: Request;
   /** The caller as a member of the route's lab (lab routes only; already authorised for the route's action). */
   labActor: () => LabActor;
+  /** The raw body, for routes that take a file as text (`textBody`). */
+  text: string;
 }
 
 export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z.ZodType, R extends z.ZodType> {
@@ -52,8 +54,10 @@ export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z
   body?: B;
   response: R;
   successStatus?: 200 | 201 | 202 | 204;
-  /** Largest accepted JSON body in bytes (default 256 KiB). */
+  /** Largest accepted body in bytes (default 256 KiB), enforced while the stream is read. */
   maxBodyBytes?: number;
+  /** The route takes a file as text of these content types instead of JSON (e.g. an SVG upload). */
+  textBody?: { contentTypes: readonly string[] };
   /** Returns the JSON body (validated against `response`), or a ready `Response` for downloads and custom statuses. */
   handler: (ctx: RouteContext<z.infer<P>, z.infer<Q>, z.infer<B>>) => Promise<z.input<R> | Response>;
 }
@@ -118,6 +122,16 @@ async function readJsonBody(request: Request, maxBytes: number): Promise<unknown
   }
 }
 
+async function readTextBody(request: Request, maxBytes: number, contentTypes: readonly string[]): Promise<string> {
+  const type = (request.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
+  if (!contentTypes.includes(type)) {
+    throw validationError('request', `Send the file as ${contentTypes.join(' or ')}.`, { file: [`Unsupported type ${type || '(none)'}`] });
+  }
+  const declared = Number(request.headers.get('content-length') ?? '0');
+  if (declared > maxBytes) throw new AppError('too_large:request', `The file is over ${Math.round(maxBytes / 1024)} KiB.`, { fields: { file: ['Too large'] } });
+  return readTextCapped(request, maxBytes);
+}
+
 /** Reads a request body as text, stopping with 413 as soon as it passes `maxBytes`. */
 export async function readTextCapped(request: Request, maxBytes: number): Promise<string> {
   if (!request.body) return '';
@@ -163,14 +177,16 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
       const url = new URL(request.url);
       const query = parseWith(route.query ?? EMPTY_OBJECT, Object.fromEntries(url.searchParams), 'query');
       const hasBody = route.method !== 'GET' && route.method !== 'DELETE';
-      const rawBody = hasBody ? await readJsonBody(request, route.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES) : undefined;
+      const maxBytes = route.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES;
+      const text = route.textBody && hasBody ? await readTextBody(request, maxBytes, route.textBody.contentTypes) : '';
+      const rawBody = hasBody && !route.textBody ? await readJsonBody(request, maxBytes) : undefined;
       const body = route.body ? parseWith(route.body, rawBody ?? {}, 'body') : undefined;
 
       const principal = await getRequestPrincipal(request);
       if (route.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
       const actor = await actorFor(route.access, principal, params);
 
-      const result = await route.handler({ params, query, body, principal, request, labActor: labActorGetter(actor, route.id) });
+      const result = await route.handler({ params, query, body, principal, request, labActor: labActorGetter(actor, route.id), text });
       if (result instanceof Response) return result;
       const status = route.successStatus ?? 200;
       if (status === 204) return new Response(null, { status });

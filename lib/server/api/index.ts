@@ -3,3 +3,4 @@ import 'server-only';
 export * from './health';
 export * from './account';
 export * from './labs';
+export * from './seed-shapes';

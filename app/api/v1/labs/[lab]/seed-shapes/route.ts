@@ -1,0 +1,6 @@
+import { createSeedShapeRoute, listSeedShapesRoute } from '@/lib/server/api';
+import { toHandler } from '@/lib/server/http';
+
+export const dynamic = 'force-dynamic';
+export const GET = toHandler(listSeedShapesRoute);
+export const POST = toHandler(createSeedShapeRoute);
