@@ -98,6 +98,8 @@ describe('FFT, direct and exact synthesis agree', () => {
 
   it.each<[string, number, ShapeDescriptor]>([
     ['radial', 64, radial],
+    ['radial, 3 terms, r0 = 2.5 (single pass)', 256, rf([[0.1, 3, 0.3], [0.05, 5, 1], [0.03, 7, 2]], 2.5)],
+    ['radial, 9 terms (three passes)', 512, rf(Array.from({ length: 9 }, (_, i): [number, number, number] => [0.02, i + 2, i]), 0.7)],
     ['radial', 1024, radial],
     ['elliptic', 256, elliptic],
     ['complex', 128, complex],
