@@ -1,13 +1,11 @@
-import {
-  fitRadialHarmonics,
-  ShapeError,
-  toComplexHarmonics,
-  toEllipticHarmonics,
-  validateDescriptor,
-  type ComplexDescriptor,
-  type Contour,
-  type ShapeDescriptor,
-} from './shape';
+// Modules are imported one by one (not from lib/shape's index) so the SVG parser's paper.js stays out of the
+// browser bundle.
+import { ShapeError } from './shape/errors';
+import { fitRadialHarmonics } from './shape/fit-radial-harmonics';
+import { toComplexHarmonics } from './shape/to-complex-harmonics';
+import { toEllipticHarmonics } from './shape/to-elliptic-harmonics';
+import type { ComplexDescriptor, Contour, ShapeDescriptor } from './shape/types';
+import { validateDescriptor } from './shape/validate-descriptor';
 import { measureShape, sampleForMeasures, thumbnailPath, type ShapeMeasures } from './shape/measure-shape';
 import { shapeErrorField } from './shape-error-field';
 import { DescriptorSchema, MAX_HARMONIC, type DescriptorInput, type Family } from './schemas/descriptor';

@@ -1,4 +1,5 @@
-import type { ShapeError, ShapeDescriptor } from './shape';
+import type { ShapeError } from './shape/errors';
+import type { ShapeDescriptor } from './shape/types';
 
 /**
  * The harmonic-table field a shape-engine error is about, as `terms.<i>[.<field>]`: from the term index when the

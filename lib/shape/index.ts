@@ -81,3 +81,7 @@ export { silhouetteDistance } from './silhouette-distance';
 export { contourToSvgPath, type SvgPathOptions } from './contour-to-svg-path';
 export { parseSvgOutline, type ParseSvgOptions } from './parse-svg-outline';
 export { parseCsvOutline } from './parse-csv-outline';
+export { splitPathData } from './split-path-data';
+
+// Editor metrics and thumbnails
+export { measureShape, sampleForMeasures, thumbnailPath, MEASURE_SAMPLES, type ShapeMeasures } from './measure-shape';

@@ -1,4 +1,5 @@
-import paper from 'paper/dist/paper-core';
+import type paper from 'paper/dist/paper-core';
+import { paperScope } from './paper-scope';
 import { ShapeError } from './errors';
 import type { Contour } from './types';
 
@@ -13,23 +14,6 @@ export interface ParseSvgOptions {
 const DEFAULT_RELATIVE_FLATNESS = 1e-4;
 /** An open subpath whose end lies within this fraction of the size from its start counts as closed. */
 const CLOSURE_TOLERANCE = 1e-9;
-
-type PaperCore = typeof paper;
-let scope: PaperCore | undefined;
-
-/**
- * A private paper.js scope with a 1 × 1 project. paper.js keeps global state; items are created with
- * `insert: false`, so nothing accumulates in the project. `importSVG` is not used: it needs a DOM.
- */
-function paperScope(): PaperCore {
-  if (!scope) {
-    const created = new paper.PaperScope() as unknown as PaperCore;
-    created.setup(new created.Size(1, 1));
-    scope = created;
-  }
-  scope.activate();
-  return scope;
-}
 
 function attribute(tag: string, name: string): string | undefined {
   const match = new RegExp(`(?:^|\\s)${name}\\s*=\\s*("([^"]*)"|'([^']*)')`).exec(tag);

@@ -1,19 +1,6 @@
-import paper from 'paper/dist/paper-core';
+import type paper from 'paper/dist/paper-core';
+import { paperScope } from './paper-scope';
 import { ShapeError } from './errors';
-
-type PaperCore = typeof paper;
-let scope: PaperCore | undefined;
-
-/** A private paper.js scope (paper keeps global state; items are made with `insert: false`). */
-function paperScope(): PaperCore {
-  if (!scope) {
-    const created = new paper.PaperScope() as unknown as PaperCore;
-    created.setup(new created.Size(1, 1));
-    scope = created;
-  }
-  scope.activate();
-  return scope;
-}
 
 /**
  * Splits SVG path data with several subpaths (`M … Z m … z`, relative moves included) into one absolute path
