@@ -41,7 +41,7 @@ export function NumberSlider({
         step={step}
         value={Math.min(max, Math.max(min, value))}
         onChange={(e) => onChange(Number(e.target.value))}
-        className={`h-1 accent-[#0E5D63] ${compact ? 'w-20' : 'w-28'}`}
+        className={`h-6 accent-[#0E5D63] ${compact ? 'w-20' : 'w-28'}`}
         data-testid={testId ? `${testId}-slider` : undefined}
       />
       <input
