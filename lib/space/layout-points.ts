@@ -32,7 +32,8 @@ function latticePoints(size: number, extent: number): LayoutPoint[] {
   const points: LayoutPoint[] = [];
   for (let row = 0; row < size; row++) {
     for (let column = 0; column < size; column++) {
-      const position = { a: latticeCoordinate(column, size, extent), b: -latticeCoordinate(row, size, extent) };
+      // Row i sits at the coordinate of index n − 1 − i: b falls from +ρmax at the top (and the centre is +0, not −0).
+      const position = { a: latticeCoordinate(column, size, extent), b: latticeCoordinate(size - 1 - row, size, extent) };
       points.push({ layoutPosition: { kind: 'lattice', row, column }, position, polar: cartesianToPolar(position) });
     }
   }
