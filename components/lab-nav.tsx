@@ -4,6 +4,7 @@ import Link from 'next/link';
 export const LAB_SECTIONS = [
   { segment: '', label: 'Overview' },
   { segment: 'seed-shapes', label: 'Seed shapes' },
+  { segment: 'spaces', label: 'Shape spaces' },
   { segment: 'settings/members', label: 'Members' },
 ] as const;
 

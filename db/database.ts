@@ -88,6 +88,23 @@ export interface SeedShapesTable {
   updated_at: Generated<Date>;
 }
 
+export interface ShapeSpacesTable {
+  id: Generated<string>;
+  lab_id: string;
+  name: string;
+  seed_shape_id: string;
+  /** Axes, extent, layout and normalisation (lib/schemas/space.ts validates every write). */
+  settings: ColumnType<unknown, string, string>;
+  equalization: ColumnType<unknown | null, string | null, string | null>;
+  anisotropy: ColumnType<{ designed: number | null; equalized: number | null }, string, string>;
+  stimulus_count: number;
+  version: Generated<number>;
+  created_by: string | null;
+  updated_by: string | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
@@ -98,6 +115,7 @@ export interface Database {
   verification_tokens: VerificationTokensTable;
   password_reset_tokens: PasswordResetTokensTable;
   seed_shapes: SeedShapesTable;
+  shape_spaces: ShapeSpacesTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -107,3 +125,4 @@ export type UserRow = Selectable<UsersTable>;
 export type MembershipRow = Selectable<MembershipsTable>;
 export type InvitationRow = Selectable<InvitationsTable>;
 export type SeedShapeRow = Selectable<SeedShapesTable>;
+export type ShapeSpaceRow = Selectable<ShapeSpacesTable>;

@@ -7,6 +7,8 @@ import { findMembership, insertMembership } from './repositories/memberships';
 import { findUserByEmail, insertUser } from './repositories/users';
 import { insertSeedShape, listSeedShapes } from './repositories/seed-shapes';
 import { validateDescriptor, type ShapeDescriptor } from '@/lib/shape';
+import { anisotropyIndex, checkSpace } from '@/lib/space';
+import { insertShapeSpace, listShapeSpaces } from './repositories/shape-spaces';
 
 /**
  * The demo lab, an invented scenario: the Halden Form Perception Group is preparing a study on how people
@@ -44,6 +46,22 @@ export const DEMO_SEED_SHAPES: readonly { name: string; descriptor: ShapeDescrip
   },
 ];
 
+/** The demo lab's space: Rings 5 × 16 + centre around the pebble, sweeping its 2nd and a new 4th harmonic. */
+export const DEMO_SPACE = {
+  name: 'Pebble rings (demo)',
+  seed: 'Harbour pebble',
+  settings: {
+    axes: [
+      { label: 'Second lobe', changes: [{ harmonic: 2, field: 'amplitude', delta: 0.08 }] },
+      { label: 'Fourth lobe', changes: [{ harmonic: 4, field: 'amplitude', delta: 0.08 }] },
+    ],
+    extent: 1,
+    layout: { kind: 'rings', rings: 5, spokes: 16 },
+    normalization: { scale: 'equal-area-radius', centroid: true },
+    equalize: false,
+  },
+} as const;
+
 /** bcrypt cost for demo accounts (the same as real ones). */
 const DEMO_BCRYPT_COST = 12;
 
@@ -77,6 +95,23 @@ export async function seedDemo(db: Db): Promise<string> {
         origin: { kind: 'editor' },
       });
       created.push(`seed shape ${shape.name}`);
+    }
+    const spaces = await listShapeSpaces(trx, lab.id, { limit: 100 });
+    if (!spaces.some((sp) => sp.name === DEMO_SPACE.name)) {
+      const seedRow = (await listSeedShapes(trx, lab.id, { limit: 100 })).find((r) => r.name === DEMO_SPACE.seed)!;
+      const seed = DEMO_SEED_SHAPES.find((x) => x.name === DEMO_SPACE.seed)!.descriptor;
+      const definition = { seed, ...DEMO_SPACE.settings, equalization: null };
+      const report = checkSpace(definition);
+      if (!report.ok) throw new Error(`demo space is invalid: ${report.failures.map((f) => f.reason).join('; ')}`);
+      await insertShapeSpace(trx, lab.id, designer!.id, {
+        name: DEMO_SPACE.name,
+        seedShapeId: seedRow.id,
+        settings: DEMO_SPACE.settings,
+        equalization: null,
+        anisotropy: { designed: anisotropyIndex(definition), equalized: null },
+        stimulusCount: report.count,
+      });
+      created.push(`space ${DEMO_SPACE.name}`);
     }
   });
   return created.length ? `demo lab "${DEMO_LAB.name}": created ${created.join(', ')}` : `demo lab "${DEMO_LAB.name}" already present`;

@@ -2,6 +2,7 @@ import type { Migration } from 'kysely';
 import * as m20261202040000 from './20261202040000_create_labs_and_audit_events';
 import * as m20261202050000 from './20261202050000_create_users_memberships_invitations';
 import * as m20261202060000 from './20261202060000_create_seed_shapes';
+import * as m20261202070000 from './20261202070000_create_shape_spaces';
 
 /**
  * Every migration, by name, in order. Listed statically so the same set runs under tsx, vitest and the app
@@ -11,4 +12,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202040000_create_labs_and_audit_events': m20261202040000,
   '20261202050000_create_users_memberships_invitations': m20261202050000,
   '20261202060000_create_seed_shapes': m20261202060000,
+  '20261202070000_create_shape_spaces': m20261202070000,
 };

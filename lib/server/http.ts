@@ -174,6 +174,12 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
     try {
       const rawParams = (await context?.params) ?? {};
       const params = parseWith(route.params ?? EMPTY_OBJECT, rawParams, 'path');
+      // Who is asking is settled before the request is read further: a caller without the right gets 401/403
+      // (or 404 for another lab), never a hint about what a valid body looks like.
+      const principal = await getRequestPrincipal(request);
+      if (route.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
+      const actor = await actorFor(route.access, principal, params);
+
       const url = new URL(request.url);
       const query = parseWith(route.query ?? EMPTY_OBJECT, Object.fromEntries(url.searchParams), 'query');
       const hasBody = route.method !== 'GET' && route.method !== 'DELETE';
@@ -181,10 +187,6 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
       const text = route.textBody && hasBody ? await readTextBody(request, maxBytes, route.textBody.contentTypes) : '';
       const rawBody = hasBody && !route.textBody ? await readJsonBody(request, maxBytes) : undefined;
       const body = route.body ? parseWith(route.body, rawBody ?? {}, 'body') : undefined;
-
-      const principal = await getRequestPrincipal(request);
-      if (route.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
-      const actor = await actorFor(route.access, principal, params);
 
       const result = await route.handler({ params, query, body, principal, request, labActor: labActorGetter(actor, route.id), text });
       if (result instanceof Response) return result;

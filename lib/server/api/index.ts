@@ -4,3 +4,4 @@ export * from './health';
 export * from './account';
 export * from './labs';
 export * from './seed-shapes';
+export * from './shape-spaces';

@@ -11,6 +11,7 @@ import {
   updateSeedShape as updateSeedShapeRow,
   type SeedShapeListRow,
 } from '@/db/repositories/seed-shapes';
+import { countSpacesBySeed } from '@/db/repositories/shape-spaces';
 import { validateDescriptor, type ShapeDescriptor } from '@/lib/shape';
 import { measureShape, sampleForMeasures, thumbnailPath } from '@/lib/shape/measure-shape';
 import type { Page, PageQuery } from '@/lib/schemas/common';
@@ -36,7 +37,7 @@ function assertValidShape(descriptor: DescriptorInput): void {
   }
 }
 
-function toSeedShape(row: SeedShapeListRow): SeedShape {
+function toSeedShape(row: SeedShapeListRow, spaces = 0): SeedShape {
   // Stored descriptors were validated on write; parsing again keeps a corrupted row from reaching a page.
   const descriptor = DescriptorSchema.parse(row.descriptor);
   const contour = sampleForMeasures(descriptor as ShapeDescriptor);
@@ -54,7 +55,7 @@ function toSeedShape(row: SeedShapeListRow): SeedShape {
     updatedBy: row.updated_by_name,
     createdAt: row.created_at.toISOString(),
     updatedAt: row.updated_at.toISOString(),
-    usedBySpaces: 0,
+    usedBySpaces: spaces,
   };
 }
 
@@ -66,12 +67,14 @@ const NAME_TAKEN = conflict('seed-shape', 'A seed shape with that name already e
 export async function listSeedShapes(db: Db, actor: LabActor, query: PageQuery): Promise<Page<SeedShape>> {
   authorize(actor, 'seed:read');
   const rows = await listSeedShapeRows(db, actor.labId, query);
-  return toPage(rows, query.limit, (r) => r.updated_at, toSeedShape);
+  const counts = await countSpacesBySeed(db, rows.map((r) => r.id));
+  return toPage(rows, query.limit, (r) => r.updated_at, (r) => toSeedShape(r, counts.get(r.id) ?? 0));
 }
 
 export async function getSeedShape(db: Db, actor: LabActor, id: string): Promise<SeedShape> {
   authorize(actor, 'seed:read');
-  return toSeedShape(await getSeedShapeRow(db, actor.labId, id));
+  const counts = await countSpacesBySeed(db, [id]);
+  return toSeedShape(await getSeedShapeRow(db, actor.labId, id), counts.get(id) ?? 0);
 }
 
 export async function createSeedShape(

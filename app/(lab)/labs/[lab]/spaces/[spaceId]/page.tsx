@@ -1,0 +1,38 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { SpaceEditor } from '@/components/space-editor';
+import { AppError } from '@/lib/errors';
+import { getDb } from '@/lib/server/db';
+import { requireLabPageActor } from '@/lib/server/page-context';
+import { can } from '@/lib/server/policy';
+import { listSeedOptions } from '@/lib/server/services/seed-options';
+import { getShapeSpace } from '@/lib/server/services/shape-spaces';
+
+export const metadata: Metadata = { title: 'Shape space' };
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export default async function SpacePage({ params }: { params: Promise<{ lab: string; spaceId: string }> }) {
+  const { lab, spaceId } = await params;
+  if (!UUID.test(spaceId)) notFound();
+  const { actor } = await requireLabPageActor(lab, `/labs/${lab}/spaces/${spaceId}`);
+  const space = await getShapeSpace(getDb(), actor, spaceId).catch((e: unknown) => {
+    if (e instanceof AppError && e.kind === 'not_found') notFound();
+    throw e;
+  });
+  const seeds = await listSeedOptions(getDb(), actor);
+  const editable = can(actor.role, 'space:write');
+  return (
+    <>
+      <p className="mb-4 text-sm text-graphite-muted">
+        <Link href={`/labs/${lab}/spaces`} className="text-accent underline underline-offset-2">
+          Shape spaces
+        </Link>{' '}
+        / {space.name}
+      </p>
+      {editable ? <h1 className="sr-only">Shape space {space.name}</h1> : null}
+      <SpaceEditor key={space.id} lab={lab} seeds={seeds} initial={space} canEdit={editable} />
+    </>
+  );
+}

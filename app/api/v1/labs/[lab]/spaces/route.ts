@@ -1,0 +1,6 @@
+import { createShapeSpaceRoute, listShapeSpacesRoute } from '@/lib/server/api';
+import { toHandler } from '@/lib/server/http';
+
+export const dynamic = 'force-dynamic';
+export const GET = toHandler(listShapeSpacesRoute);
+export const POST = toHandler(createShapeSpaceRoute);
