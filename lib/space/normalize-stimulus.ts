@@ -48,8 +48,9 @@ function transform(descriptor: ShapeDescriptor, s: number, w: Point): ShapeDescr
  * Stage of `generateSpace`: normalises one stimulus's size and position, never its rotation, start point or
  * direction, so every stimulus stays aligned with the axes. The quantities are `lib/shape`'s — exact area
  * (`descriptorArea`), largest distance from the area centroid (`descriptorMaxRadius`), perimeter
- * (`descriptorPerimeter`) — and the result equals `lib/shape`'s normalisers with `orientation: 'none'`
- * (checked in the tests), but is applied straight to the coefficients with an exact, cheap centroid
+ * (`descriptorPerimeter`) — and for counter-clockwise curves the result equals `lib/shape`'s normalisers with
+ * `orientation: 'none'` (checked in the tests; they also re-trace clockwise curves, which this leaves to
+ * synthesis, as it draws every curve counter-clockwise anyway), but is applied straight to the coefficients with an exact, cheap centroid
  * (`descriptorCentroid`), ~30× faster, as the live view normalises every stimulus on every slider move.
  * - Scale: unit equal-area radius √(A/π), unit area, unit largest distance from the area centroid, unit
  *   perimeter, or `none`.

@@ -4,6 +4,8 @@ import type { ContourSpectrum } from './types';
 
 /** Newton steps on |S(τ)|² from the best grid point; it converges quadratically, so a few reach rounding level. */
 const MAX_NEWTON_STEPS = 8;
+/** |S(τ)|² values within this fraction of each other are equal to rounding (a sum of O(1) terms carries ~1e-16). */
+const PEAK_ROUNDING = 1e-13;
 /** A Newton step below this (radians) has converged. */
 const SHIFT_TOLERANCE = 1e-14;
 /**
@@ -118,8 +120,9 @@ function refineShift(shared: number, start: number, cell: number): number {
   for (let step = 0; step <= MAX_NEWTON_STEPS; step++) {
     const [s0r, s0i, s1r, s1i, s2r, s2i] = shiftSums(shared, tau);
     const value = s0r * s0r + s0i * s0i;
-    if (value >= bestValue) {
-      bestValue = value;
+    // Near the peak f is flat to rounding: a later Newton iterate that ties is the more accurate one.
+    if (value >= bestValue * (1 - PEAK_ROUNDING)) {
+      bestValue = Math.max(bestValue, value);
       bestTau = tau;
     }
     // f′ = 2 Re(conj S · S′), f″ = 2(|S′|² + Re(conj S · S″))
@@ -131,7 +134,7 @@ function refineShift(shared: number, start: number, cell: number): number {
     if (Math.abs(tau - start) > cell) break;
     if (Math.abs(delta) < SHIFT_TOLERANCE) {
       const [r0, i0] = shiftSums(shared, tau);
-      if (r0 * r0 + i0 * i0 >= bestValue) bestTau = tau;
+      if (r0 * r0 + i0 * i0 >= bestValue * (1 - PEAK_ROUNDING)) bestTau = tau;
       break;
     }
   }
