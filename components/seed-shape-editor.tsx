@@ -86,6 +86,15 @@ export function SeedShapeEditor({ lab, initial, canEdit }: { lab: string; initia
     },
     onError: (e) => setSaveError(e instanceof ApiError ? { message: e.message, fields: e.fields } : { message: 'Could not reach the server.', fields: {} }),
   });
+  const remove = useMutation({
+    mutationFn: () => apiFetch(`/api/v1/labs/${lab}/seed-shapes/${initial!.id}`, { method: 'DELETE' }),
+    onSuccess: () => {
+      setBaseline(JSON.stringify(draft));
+      router.push(`/labs/${lab}/seed-shapes`);
+      router.refresh();
+    },
+    onError: (e) => setSaveError({ message: e instanceof Error ? e.message : 'Could not delete.', fields: {} }),
+  });
   const unsaved = !initial || dirty;
   const canSave = canEdit && unsaved && draft.name.trim() !== '' && assessment.problems.length === 0 && !save.isPending;
 
@@ -224,6 +233,18 @@ export function SeedShapeEditor({ lab, initial, canEdit }: { lab: string; initia
               <Button onClick={() => save.mutate()} disabled={!canSave} data-testid="save-seed">
                 {save.isPending ? 'Saving…' : unsaved ? 'Save' : 'Saved'}
               </Button>
+              {initial ? (
+                <Button
+                  variant="danger"
+                  onClick={() => {
+                    if (window.confirm(`Delete the seed shape “${initial.name}”? This cannot be undone.`)) remove.mutate();
+                  }}
+                  disabled={remove.isPending}
+                  data-testid="delete-seed"
+                >
+                  Delete
+                </Button>
+              ) : null}
               <Button variant="quiet" onClick={() => setHelpOpen(true)} aria-label="Keyboard shortcuts (?)">
                 ?
               </Button>

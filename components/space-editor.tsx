@@ -107,6 +107,15 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
     onError: (e) => setSaveError(e instanceof ApiError ? { message: e.message, fields: e.fields } : { message: 'Could not reach the server.', fields: {} }),
   });
 
+  const remove = useMutation({
+    mutationFn: () => apiFetch(`/api/v1/labs/${lab}/spaces/${initial!.id}`, { method: 'DELETE' }),
+    onSuccess: () => {
+      router.push(`/labs/${lab}/spaces`);
+      router.refresh();
+    },
+    onError: (e) => setSaveError({ message: e instanceof Error ? e.message : 'Could not delete.', fields: {} }),
+  });
+
   if (!seed) return <Notice tone="caution">Create a seed shape first: every space is built around one.</Notice>;
   const circular = settings.layout.kind !== 'lattice';
   const fields = AXIS_FIELDS[seed.descriptor.family];
@@ -147,7 +156,20 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
           <Button onClick={() => save.mutate()} disabled={save.isPending || !name.trim() || (!dirty && !!initial)} data-testid="save-space">
             {save.isPending ? 'Saving…' : dirty || !initial ? 'Save' : 'Saved'}
           </Button>
-        ) : (
+        ) : null}
+        {canEdit && initial ? (
+          <Button
+            variant="danger"
+            onClick={() => {
+              if (window.confirm(`Delete the shape space “${initial.name}”? This cannot be undone.`)) remove.mutate();
+            }}
+            disabled={remove.isPending}
+            data-testid="delete-space"
+          >
+            Delete
+          </Button>
+        ) : null}
+        {canEdit ? null : (
           <span className="text-sm text-graphite-muted" data-testid="read-only-note">
             Read-only: your role can look but not change shape spaces.
           </span>
