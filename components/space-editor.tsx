@@ -51,16 +51,17 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
   const [version, setVersion] = useState(initial?.version ?? 0);
   const [saveError, setSaveError] = useState<{ message: string; fields: Record<string, string[]> } | null>(null);
   const frameRef = useRef<HTMLSpanElement>(null);
-  const savedJson = useRef(initial ? JSON.stringify({ name: initial.name, seedId: initial.seedShape.id, settings }) : '');
-  const dirty = JSON.stringify({ name, seedId, settings }) !== savedJson.current;
+  const [savedJson, setSavedJson] = useState(() => (initial ? JSON.stringify({ name: initial.name, seedId: initial.seedShape.id, settings }) : ''));
+  const dirty = JSON.stringify({ name, seedId, settings }) !== savedJson;
+  const savedEqualization = initial?.equalization ?? null;
 
   // The stored equalisation applies while the settings are the saved ones; a change redraws the designed space.
   const definition: SpaceDefinition | null = useMemo(
     () =>
       seed
-        ? { seed: seed.descriptor, axes: settings.axes, extent: settings.extent, layout: settings.layout, normalization: settings.normalization, equalization: !dirty && initial?.equalization ? initial.equalization : null }
+        ? { seed: seed.descriptor, axes: settings.axes, extent: settings.extent, layout: settings.layout, normalization: settings.normalization, equalization: dirty ? null : savedEqualization }
         : null,
-    [seed, settings, dirty, initial?.equalization],
+    [seed, settings, dirty, savedEqualization],
   );
   const live = useMemo(() => {
     if (!definition) return null;
@@ -100,7 +101,7 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
     onSuccess: (saved) => {
       setSaveError(null);
       setVersion(saved.version);
-      savedJson.current = JSON.stringify({ name: saved.name, seedId: saved.seedShape.id, settings });
+      setSavedJson(JSON.stringify({ name: saved.name, seedId: saved.seedShape.id, settings }));
       if (!initial) router.replace(`/labs/${lab}/spaces/${saved.id}`);
       else router.refresh();
     },
