@@ -4,7 +4,7 @@ import { descriptorSpectrum } from './descriptor-spectrum';
 import { generateSpace } from './generate-space';
 import { layoutRays } from './layout-rays';
 import { rayGrowth } from './ray-growth';
-import type { ContourSpectrum, SpaceDefinition } from './types';
+import type { ContourSpectrum, SpaceDefinition, Stimulus } from './types';
 
 /**
  * The anisotropy index of a space: the largest over the smallest rate at which contour distance from the centre
@@ -23,7 +23,7 @@ export function anisotropyIndex(definition: SpaceDefinition): number {
   const spectrumOf = (i: number): ContourSpectrum => {
     let s = spectra.get(i);
     if (!s) {
-      s = descriptorSpectrum(stimuli[i]!.descriptor);
+      s = descriptorSpectrum((stimuli[i] as Stimulus).descriptor);
       spectra.set(i, s);
     }
     return s;

@@ -63,6 +63,7 @@ export function auditSpace(definition: SpaceDefinition, options: AuditOptions = 
   // Phase 1: a valid space, its stimuli, outlines, metrics and spectra.
   const check = checkSpace(definition);
   if (!check.ok) throw new SpaceError('invalid-space', `the space has problems to fix before an audit: ${check.failures.map((f) => `${f.id}: ${f.reason}`).join('; ')}`, check.failures);
+  report?.(AUDIT_PROGRESS.checked);
   const { stimuli } = generateSpace(definition);
   const metrics = stimuli.map(stimulusMetrics);
   const spectra = stimuli.map((s) => descriptorSpectrum(s.descriptor));

@@ -62,6 +62,7 @@ export { stimulusMetrics } from './stimulus-metrics';
 // Distances and RDMs
 export { contourSpectrum } from './contour-spectrum';
 export { descriptorSpectrum } from './descriptor-spectrum';
+export { descriptorCentroid } from './descriptor-centroid';
 export { shiftGrid } from './shift-grid';
 export { spectrumDistance } from './spectrum-distance';
 export { contourDistance } from './contour-distance';

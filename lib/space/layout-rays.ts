@@ -1,3 +1,4 @@
+import { SpaceError } from './space-error';
 import { stimulusId } from './stimulus-id';
 import { wrapAngle } from './wrap-angle';
 import type { LayoutLine, LayoutPosition, LayoutRay, SpaceLayout, Stimulus } from './types';
@@ -97,7 +98,7 @@ export function layoutRays(layout: SpaceLayout, stimuli: readonly Pick<Stimulus,
   const indexById = new Map(stimuli.map((s, i) => [s.id, i]));
   const find = (position: LayoutPosition): number => {
     const index = indexById.get(stimulusId(position));
-    if (index === undefined) throw new Error(`layout position ${stimulusId(position)} is missing from the stimuli`);
+    if (index === undefined) throw new SpaceError('invalid-argument', `layout position ${stimulusId(position)} is missing: pass the stimuli generateSpace made for this layout`);
     return index;
   };
   if (stimuli.length === 0) return { rays: [], lines: [] };

@@ -15,6 +15,7 @@ import {
 } from '@/lib/shape';
 import {
   compileAxes,
+  descriptorCentroid,
   equalizationMap,
   generateSpace,
   normalizeStimulus,
@@ -23,7 +24,6 @@ import {
   type SpaceDefinition,
   type Stimulus,
 } from '@/lib/space';
-import { descriptorCentroid } from '@/lib/space/descriptor-centroid';
 import { ellipticArbitrary, smoothRadialArbitrary } from '../shape/support';
 import { BEAN, COMMA, PROPERTY_SEED, TREFOIL, amplitudeAxis, deepFreeze, ellipticSpace, radialSpace } from './support';
 
