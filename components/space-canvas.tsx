@@ -81,32 +81,21 @@ export function SpaceCanvas({
     const spacing = minSpacing(stimuli) * unit;
     const scale = maxR > 0 ? (0.46 * Math.max(spacing, 6)) / maxR : 1;
 
-    // One path per colour, filled once: far fewer fill calls than one per stimulus.
-    const byColor = new Map<string, CanvasStimulus[]>();
+    // One path and fill per stimulus: measured in headless Chromium, 441 separate fills take ~28 ms where one
+    // batched 113k-vertex path takes ~130 ms (the rasteriser sorts all edges of a path together).
     for (const s of stimuli) {
-      const key = s.contour ? (s.color ?? '#23262B') : 'invalid';
-      const list = byColor.get(key);
-      if (list) list.push(s);
-      else byColor.set(key, [s]);
-    }
-    for (const [color, group] of byColor) {
-      if (color === 'invalid') {
+      const c = s.contour;
+      const [px, py] = toPx(s.a, s.b);
+      if (!c) {
         ctx.fillStyle = '#A63F00';
-        for (const s of group) {
-          const [px, py] = toPx(s.a, s.b);
-          ctx.fillRect(px - 2, py - 2, 4, 4);
-        }
+        ctx.fillRect(px - 2, py - 2, 4, 4);
         continue;
       }
-      ctx.fillStyle = color;
+      ctx.fillStyle = s.color ?? '#23262B';
       ctx.beginPath();
-      for (const s of group) {
-        const c = s.contour!;
-        const [px, py] = toPx(s.a, s.b);
-        ctx.moveTo(px + c.x[0]! * scale, py - c.y[0]! * scale);
-        for (let i = 1; i < c.x.length; i++) ctx.lineTo(px + c.x[i]! * scale, py - c.y[i]! * scale);
-        ctx.closePath();
-      }
+      ctx.moveTo(px + c.x[0]! * scale, py - c.y[0]! * scale);
+      for (let i = 1; i < c.x.length; i++) ctx.lineTo(px + c.x[i]! * scale, py - c.y[i]! * scale);
+      ctx.closePath();
       ctx.fill();
     }
     const chosen = stimuli.find((s) => s.id === selectedId);
