@@ -39,6 +39,7 @@ test('a Designer builds a Rings space from the demo seed, drags an axis and sees
 test('the live view redraws 441 stimuli × 256 samples: frame time measured with performance marks', async ({ page }) => {
   await new SignInPage(page).signInAndLand(demoUser('designer').email, DEMO_PASSWORD, /\/labs\/halden-form/);
   await page.goto(`/labs/${DEMO_LAB_SLUG}/spaces/new`);
+  await page.getByTestId('space-seed').selectOption({ label: 'Harbour pebble (Radial harmonics)' });
   await page.getByTestId('layout-kind').selectOption('lattice');
   await page.getByTestId('layout-size').fill('21');
   await expect(page.getByTestId('space-canvas')).toHaveAttribute('data-stimuli', '441');
