@@ -20,6 +20,7 @@ test('a Designer uploads an SVG outline, sees the overlay and the error, and sav
   const mean = Number(await page.getByTestId('fit-mean-error').textContent());
   expect(mean).toBeGreaterThan(0);
   expect(mean).toBeLessThan(0.02);
+  await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: 'test-results/screens/seed-upload.png', fullPage: true });
 
   await page.getByTestId('use-fit').click();
