@@ -4,6 +4,7 @@ import { SequenceError } from './sequence-error';
 /** Search nodes allowed by default: B(4,2) (20,736 cycles) needs well under a million; more is a mistake. */
 const DEFAULT_MAX_NODES = 20_000_000;
 
+/** Options of `countDeBruijnCyclesByEnumeration`. */
 export interface EnumerationOptions {
   /** Abort with `enumeration-too-large` after this many search nodes (default 20,000,000). */
   readonly maxNodes?: number;

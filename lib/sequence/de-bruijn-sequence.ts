@@ -2,6 +2,7 @@ import { leastDeBruijnSequence } from './least-de-bruijn-sequence';
 import { randomPermutation } from './random-permutation';
 import { seededRandom } from './seeded-random';
 
+/** Options of `deBruijnSequence`. */
 export interface DeBruijnOptions {
   /** Integer 0…2³²−1. When given, the symbols are relabelled by a permutation drawn from this seed. */
   readonly seed?: number;

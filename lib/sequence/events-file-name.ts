@@ -3,6 +3,7 @@ import { SequenceError } from './sequence-error';
 /** BIDS labels are alphanumeric only: `-` and `_` separate entities in file names. */
 const BIDS_LABEL = /^[A-Za-z0-9]+$/;
 
+/** The BIDS entities of an events file name. */
 export interface EventsFileNameParts {
   /** Participant label, alphanumeric (the `sub-` entity). */
   readonly subject: string;

@@ -19,6 +19,7 @@ const CLOCK_CHECK_INTERVAL = 4_096;
  */
 const PRUNE_TAIL_BLOCKS = 8;
 
+/** Options of `searchChainedBlocks`. */
 export interface ChainedBlockSearchOptions {
   /** Give up with `search-timeout` after this many milliseconds (≥ 0). */
   readonly timeBudgetMs: number;

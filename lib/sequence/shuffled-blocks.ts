@@ -4,6 +4,7 @@ import { seededRandom } from './seeded-random';
 import { SequenceError } from './sequence-error';
 import { SEQUENCE_LIMITS } from './sequence-limits';
 
+/** Options of `shuffledBlocks`. */
 export interface ShuffledBlocksOptions {
   /** Integer 0…2³²−1; the same seed always gives the same order. */
   readonly seed: number;

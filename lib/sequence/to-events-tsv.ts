@@ -10,6 +10,7 @@ const MISSING_VALUE = 'n/a';
 /** The column order: BIDS requires `onset` and `duration` first. */
 const COLUMNS = ['onset', 'duration', 'trial_type', 'stim_file'] as const;
 
+/** Options of `toEventsTsv`. */
 export interface EventsTsvOptions {
   /** Fixed decimals for `onset` and `duration`, 0…6 (default 3). */
   readonly decimals?: number;

@@ -6,6 +6,7 @@ import { SEQUENCE_LIMITS } from './sequence-limits';
 /** The orders for which no type-1 index-1 sequence exists (Nonyane & Theobald 2007). */
 const NONEXISTENT_ORDERS: readonly number[] = [3, 4, 5];
 
+/** Options of `type1Index1Sequence`. */
 export interface Type1Index1Options {
   /** Integer 0…2³²−1; the same seed always gives the same sequence. */
   readonly seed: number;

@@ -222,7 +222,7 @@ describe('buildRunOrder: bad input', () => {
     ['an empty id', [{ id: '' }, { id: 'b' }]],
     ['a tab in an id', [{ id: 'a\tb' }, { id: 'b' }]],
     ['the id n/a', [{ id: 'n/a' }, { id: 'b' }]],
-    ['an absolute stimulus path', [{ id: 'a', stimFile: '/tmp/a.png' }, { id: 'b' }]],
+    ['an absolute stimulus path', [{ id: 'a', stimFile: '/set/a.png' }, { id: 'b' }]],
     ['a parent-folder stimulus path', [{ id: 'a', stimFile: '../a.png' }, { id: 'b' }]],
     ['a backslash path', [{ id: 'a', stimFile: 'set\\a.png' }, { id: 'b' }]],
   ])('refuses %s', (_, input) => {
