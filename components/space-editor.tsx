@@ -4,12 +4,14 @@ import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useCallback, useMemo, useRef, useState } from 'react';
 import { ApiError, apiFetch } from '@/lib/api-client';
+import { assessDraft, removeHarmonic, setTermField } from '@/lib/seed-editor';
 import { AXIS_FIELDS, defaultSettings, liveStimuli } from '@/lib/space-editor';
-import { FAMILY_LABELS } from '@/lib/schemas/descriptor';
+import { FAMILY_LABELS, type DescriptorInput } from '@/lib/schemas/descriptor';
 import type { ShapeSpace, SpaceSettings } from '@/lib/schemas/space';
 import type { ShapeDescriptor } from '@/lib/shape/types';
 import type { SpaceDefinition } from '@/lib/space/types';
 import { ConfoundAuditPanel } from './confound-audit-panel';
+import { HarmonicTable } from './harmonic-table';
 import { NumberSlider } from './number-slider';
 import { SpaceCanvas, type CanvasStimulus } from './space-canvas';
 import { SpaceInspector } from './space-inspector';
@@ -19,6 +21,7 @@ import { Notice } from './ui/notice';
 export interface SeedOption {
   id: string;
   name: string;
+  version: number;
   descriptor: ShapeDescriptor;
 }
 
@@ -38,10 +41,22 @@ const numberClass = 'tabular mt-1 block h-8 w-20 rounded-[3px] border-[0.5px] bo
 /** The shape-space editor: seed, two axes, ρmax, layout and normalisation, with the whole space redrawn live. */
 export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; seeds: SeedOption[]; initial: ShapeSpace | null; canEdit: boolean }) {
   const router = useRouter();
-  const firstSeed = initial ? seeds.find((s) => s.id === initial.seedShape.id) ?? { id: initial.seedShape.id, name: initial.seedShape.name, descriptor: initial.seedShape.descriptor as ShapeDescriptor } : seeds[0];
+  const firstSeed = initial ? seeds.find((s) => s.id === initial.seedShape.id) ?? { id: initial.seedShape.id, name: initial.seedShape.name, version: 1, descriptor: initial.seedShape.descriptor as ShapeDescriptor } : seeds[0];
   const [name, setName] = useState(initial?.name ?? '');
   const [seedId, setSeedId] = useState(firstSeed?.id ?? '');
-  const seed = seeds.find((s) => s.id === seedId) ?? firstSeed;
+  const baseSeed = seeds.find((s) => s.id === seedId) ?? firstSeed;
+  // Edits to the seed's own harmonics, per seed, made from this view; saving the space saves them to the seed shape.
+  const [seedDrafts, setSeedDrafts] = useState<Record<string, DescriptorInput>>({});
+  const [seedVersions, setSeedVersions] = useState<Record<string, number>>({});
+  const seedDraft = baseSeed ? seedDrafts[baseSeed.id] : undefined;
+  const seedDirty = !!baseSeed && !!seedDraft && JSON.stringify(seedDraft) !== JSON.stringify(baseSeed.descriptor);
+  const seed = useMemo(() => (baseSeed && seedDraft ? { ...baseSeed, descriptor: seedDraft as ShapeDescriptor } : baseSeed), [baseSeed, seedDraft]);
+  const seedAssessment = useMemo(() => (seed ? assessDraft(seed.descriptor as DescriptorInput) : null), [seed]);
+  const seedProblems = useMemo(() => {
+    const m = new Map<string, string>();
+    for (const p of seedAssessment?.problems ?? []) if (p.field && !m.has(p.field)) m.set(p.field, p.message);
+    return m;
+  }, [seedAssessment]);
   const [settings, setSettings] = useState<SpaceSettings>(() =>
     initial
       ? { axes: initial.axes, extent: initial.extent, layout: initial.layout, normalization: initial.normalization, equalize: initial.equalization !== null }
@@ -52,8 +67,9 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
   const [saveError, setSaveError] = useState<{ message: string; fields: Record<string, string[]> } | null>(null);
   const frameRef = useRef<HTMLSpanElement>(null);
   const [savedJson, setSavedJson] = useState(() => (initial ? JSON.stringify({ name: initial.name, seedId: initial.seedShape.id, settings }) : ''));
-  const dirty = JSON.stringify({ name, seedId, settings }) !== savedJson;
+  const settingsDirty = JSON.stringify({ name, seedId, settings }) !== savedJson;
   const savedEqualization = initial?.equalization ?? null;
+  const dirty = settingsDirty || seedDirty;
 
   // The stored equalisation applies while the settings are the saved ones; a change redraws the designed space.
   const definition: SpaceDefinition | null = useMemo(
@@ -92,7 +108,12 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
   const setAxis = (i: 0 | 1, axis: Axis) => setSettings((s) => ({ ...s, axes: (i === 0 ? [axis, s.axes[1]] : [s.axes[0], axis]) as SpaceSettings['axes'] }));
 
   const save = useMutation({
-    mutationFn: () => {
+    mutationFn: async () => {
+      if (seedDirty && baseSeed && seedDraft) {
+        const version = seedVersions[baseSeed.id] ?? baseSeed.version;
+        const savedSeed = await apiFetch<{ version: number }>(`/api/v1/labs/${lab}/seed-shapes/${baseSeed.id}`, { method: 'PATCH', body: { descriptor: seedDraft, version } });
+        setSeedVersions((v) => ({ ...v, [baseSeed.id]: savedSeed.version }));
+      }
       const body = { name, seedShapeId: seedId, ...settings };
       return initial
         ? apiFetch<ShapeSpace>(`/api/v1/labs/${lab}/spaces/${initial.id}`, { method: 'PATCH', body: { ...body, version } })
@@ -261,6 +282,25 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
           </label>
         </fieldset>
       </div>
+
+      {canEdit && seed ? (
+        <details className="border-t-[0.5px] border-rule pt-4 text-sm" data-testid="seed-harmonics-panel">
+          <summary className="cursor-pointer font-medium">Seed harmonics — {seed.name}</summary>
+          <p className="mt-2 text-graphite-soft">
+            Changing the seed moves every stimulus. Saving the space saves these harmonics to the seed shape itself, which other spaces built on it share.
+          </p>
+          <div className="mt-3 max-w-3xl">
+            <HarmonicTable
+              draft={seed.descriptor as DescriptorInput}
+              readOnly={false}
+              problems={seedProblems}
+              onField={(i, field, v) => setSeedDrafts((d) => ({ ...d, [seed.id]: setTermField(seed.descriptor as DescriptorInput, i, field, v) }))}
+              onRemove={(i) => setSeedDrafts((d) => ({ ...d, [seed.id]: removeHarmonic(seed.descriptor as DescriptorInput, i) }))}
+            />
+          </div>
+          {seedDirty ? <p className="mt-2 text-xs text-caution" data-testid="seed-changed-note">The seed has unsaved changes.</p> : null}
+        </details>
+      ) : null}
 
       {definition && !live?.error ? <ConfoundAuditPanel definition={definition} /> : null}
     </div>

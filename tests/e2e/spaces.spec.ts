@@ -28,6 +28,14 @@ test('a Designer builds a Rings space from the demo seed, drags an axis and sees
   await expect(page).toHaveURL(/\/spaces\/[0-9a-f-]{36}$/);
   await expect(page.getByTestId('save-space')).toHaveText('Saved');
 
+  // The seed's own harmonics move every thumbnail too (not saved here, so the demo seed stays as it is).
+  await page.getByTestId('seed-harmonics-panel').locator('summary').click();
+  const beforeSeed = await canvasImage(page);
+  await page.getByTestId('h3-amplitude-slider').focus();
+  for (let i = 0; i < 6; i++) await page.keyboard.press('ArrowRight');
+  await expect.poll(() => canvasImage(page)).not.toBe(beforeSeed);
+  await expect(page.getByTestId('seed-changed-note')).toBeVisible();
+
   await page.getByTestId('run-audit').click();
   await expect(page.getByTestId('audit-result')).toBeVisible({ timeout: 60_000 });
   await expect(page.getByTestId('audit-anisotropy')).toBeVisible();
