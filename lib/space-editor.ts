@@ -14,14 +14,32 @@ export interface LiveStimulus {
   contour: Contour | null;
 }
 
-/** Generates the space and synthesises every stimulus; a stimulus the engine refuses gets `contour: null`. */
+// One buffer for every live contour, reused frame after frame: allocating hundreds of small typed arrays per
+// frame costs more than synthesising them in Chromium. Contours of a frame are views into it, so they are
+// valid until the next call.
+let pool = new Float64Array(0);
+
+function poolViews(count: number): Contour[] {
+  const per = 2 * LIVE_SAMPLES;
+  if (pool.length < count * per) pool = new Float64Array(count * per);
+  return Array.from({ length: count }, (_, i) => ({
+    x: pool.subarray(i * per, i * per + LIVE_SAMPLES),
+    y: pool.subarray(i * per + LIVE_SAMPLES, (i + 1) * per),
+  }));
+}
+
+/**
+ * Generates the space and synthesises every stimulus; a stimulus the engine refuses gets `contour: null`.
+ * The contours share one reused buffer and stay valid only until the next call.
+ */
 export function liveStimuli(definition: SpaceDefinition): { items: LiveStimulus[]; error: string | null; ms: number } {
   const t0 = performance.now();
   try {
     const { stimuli } = generateSpace(definition);
-    const items = stimuli.map((stimulus) => {
+    const views = poolViews(stimuli.length);
+    const items = stimuli.map((stimulus, i) => {
       try {
-        return { stimulus, contour: stimulusContour(stimulus, LIVE_SAMPLES) };
+        return { stimulus, contour: stimulusContour(stimulus, LIVE_SAMPLES, { output: views[i]! }) };
       } catch {
         return { stimulus, contour: null };
       }

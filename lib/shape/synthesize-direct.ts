@@ -96,10 +96,9 @@ function addRadialTerm(acc: Float64Array, cos: Float64Array, sin: Float64Array, 
   }
 }
 
-function synthesizeRadial(descriptor: RadialDescriptor, size: number): Contour {
+function synthesizeRadial(descriptor: RadialDescriptor, size: number, output?: Contour): Contour {
   const { cos, sin } = getTrigTable(size);
-  const x = new Float64Array(size);
-  const y = new Float64Array(size);
+  const { x, y } = outputArrays(size, output, 0, 0);
   const r0 = descriptor.baseRadius;
   const active = descriptor.terms.filter((term) => term.amplitude !== 0);
   if ((size & (size - 1)) === 0) {
@@ -151,20 +150,18 @@ function addHarmonic(x: Float64Array, y: Float64Array, cos: Float64Array, sin: F
   }
 }
 
-function synthesizeElliptic(descriptor: EllipticDescriptor, size: number): Contour {
+function synthesizeElliptic(descriptor: EllipticDescriptor, size: number, output?: Contour): Contour {
   const { cos, sin } = getTrigTable(size);
-  const x = new Float64Array(size).fill(descriptor.center[0]);
-  const y = new Float64Array(size).fill(descriptor.center[1]);
+  const { x, y } = outputArrays(size, output, descriptor.center[0], descriptor.center[1]);
   for (const { n, a, b, c, d } of descriptor.terms) {
     if (a !== 0 || b !== 0 || c !== 0 || d !== 0) addHarmonic(x, y, cos, sin, n, a, b, c, d);
   }
   return { x, y };
 }
 
-function synthesizeComplex(descriptor: ComplexDescriptor, size: number): Contour {
+function synthesizeComplex(descriptor: ComplexDescriptor, size: number, output?: Contour): Contour {
   const { cos, sin } = getTrigTable(size);
-  const x = new Float64Array(size);
-  const y = new Float64Array(size);
+  const { x, y } = outputArrays(size, output, 0, 0);
   // Re/Im of (re + i·im)(cos kt + i sin kt).
   for (const { k, re, im } of descriptor.terms) {
     if (re !== 0 || im !== 0) addHarmonic(x, y, cos, sin, k, re, -im, im, re);
@@ -175,15 +172,25 @@ function synthesizeComplex(descriptor: ComplexDescriptor, size: number): Contour
 /**
  * Samples a descriptor at t_j = 2πj/N, j = 0…N−1, by a direct sum over its non-zero harmonics with
  * precomputed cos/sin tables: O(N · terms). Any N ≥ 1. No validation and no orientation change: callers use
- * `synthesizeContour`.
+ * `synthesizeContour`. With `output`, the samples are written into its arrays (length N) instead of new ones.
  */
-export function synthesizeDirect(descriptor: ShapeDescriptor, size: number): Contour {
+export function synthesizeDirect(descriptor: ShapeDescriptor, size: number, output?: Contour): Contour {
   switch (descriptor.family) {
     case 'radial':
-      return synthesizeRadial(descriptor, size);
+      return synthesizeRadial(descriptor, size, output);
     case 'elliptic':
-      return synthesizeElliptic(descriptor, size);
+      return synthesizeElliptic(descriptor, size, output);
     case 'complex':
-      return synthesizeComplex(descriptor, size);
+      return synthesizeComplex(descriptor, size, output);
   }
+}
+
+/** The arrays to write into: the caller's (filled with the start values) or fresh ones. */
+function outputArrays(size: number, output: Contour | undefined, x0: number, y0: number): { x: Float64Array; y: Float64Array } {
+  if (output) return { x: output.x.fill(x0), y: output.y.fill(y0) };
+  const x = new Float64Array(size);
+  const y = new Float64Array(size);
+  if (x0 !== 0) x.fill(x0);
+  if (y0 !== 0) y.fill(y0);
+  return { x, y };
 }

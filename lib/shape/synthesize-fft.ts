@@ -56,13 +56,13 @@ function fillSpectrum(descriptor: ShapeDescriptor, spectrum: Float64Array, size:
  * bins k mod N of the spectrum of z = x + iy, so x_j + iy_j = Σ c_k e^{2πijk/N} (an inverse DFT without the
  * 1/N, done as conj(FFT(conj c))). N must be a power of two ≥ 4. No validation and no orientation change: callers use `synthesizeContour`.
  */
-export function synthesizeFft(descriptor: ShapeDescriptor, size: number): Contour {
+export function synthesizeFft(descriptor: ShapeDescriptor, size: number, output?: Contour): Contour {
   const { spectrum, signal } = getScratch(size);
   spectrum.fill(0);
   fillSpectrum(descriptor, spectrum, size);
   getFftPlan(size).transform(signal, spectrum);
-  const x = new Float64Array(size);
-  const y = new Float64Array(size);
+  const x = output?.x ?? new Float64Array(size);
+  const y = output?.y ?? new Float64Array(size);
   for (let j = 0; j < size; j++) {
     x[j] = signal[2 * j] as number;
     y[j] = -(signal[2 * j + 1] as number);

@@ -5,6 +5,17 @@ import type { Point, ShapeDescriptor } from '../shape/types';
 /** A floor on the quadrature size, for curves with one or two harmonics. */
 const MIN_SAMPLES = 8;
 
+let buffers = { x: new Float64Array(0), y: new Float64Array(0), dy: new Float64Array(0) };
+
+/** Zeroed work arrays of at least `size` entries (only the first `size` are used). */
+function scratch(size: number) {
+  if (buffers.x.length < size) buffers = { x: new Float64Array(size), y: new Float64Array(size), dy: new Float64Array(size) };
+  buffers.x.fill(0, 0, size);
+  buffers.y.fill(0, 0, size);
+  buffers.dy.fill(0, 0, size);
+  return buffers;
+}
+
 /**
  * The area centroid of the region a descriptor's curve encloses, exact and cheap, for normalising every
  * stimulus on every slider move. Green's theorem: A = ∮ x dy, C = (1/A)(∮ ½x² dy, ∮ xy dy), on the complex form
@@ -19,10 +30,9 @@ export function descriptorCentroid(descriptor: ShapeDescriptor): Point {
   for (const t of terms) highest = Math.max(highest, Math.abs(t.k));
   const samples = Math.max(MIN_SAMPLES, 3 * highest + 2);
   const { cos, sin } = getTrigTable(samples);
-  // Phase 1: x, y and y′ at t_j = 2πj/M, one term at a time (the table index steps by k).
-  const x = new Float64Array(samples);
-  const y = new Float64Array(samples);
-  const dy = new Float64Array(samples);
+  // Phase 1: x, y and y′ at t_j = 2πj/M, one term at a time (the table index steps by k). The work arrays are
+  // reused scratch: browsers allocate small typed arrays slowly, and this runs for every stimulus on every move.
+  const { x, y, dy } = scratch(samples);
   for (const { k, re, im } of terms) {
     const step = ((k % samples) + samples) % samples;
     let index = 0;

@@ -12,6 +12,8 @@ export interface StimulusContourOptions {
   readonly checkSimple?: boolean;
   /** Synthesis path (default `auto`, the engine's cheaper of a direct sum and an FFT). */
   readonly method?: SynthesisMethod;
+  /** Arrays of length `samples` to write into (see `synthesizeContour`'s `output`). */
+  readonly output?: Contour;
 }
 
 /**
@@ -20,7 +22,11 @@ export interface StimulusContourOptions {
  * engine's `ShapeError` for a shape it refuses (r ≤ 0, too few samples for the highest harmonic, …).
  */
 export function stimulusContour(stimulus: Stimulus, samples: number, options: StimulusContourOptions = {}): Contour {
-  const contour = synthesizeContour(stimulus.descriptor, samples, { checkSimple: options.checkSimple ?? false, method: options.method ?? 'auto' });
+  const contour = synthesizeContour(stimulus.descriptor, samples, {
+    checkSimple: options.checkSimple ?? false,
+    method: options.method ?? 'auto',
+    ...(options.output ? { output: options.output } : {}),
+  });
   const [dx, dy] = stimulus.contourOffset;
   if (dx === 0 && dy === 0) return contour;
   const { x, y } = contour;
