@@ -1,0 +1,10 @@
+// lib/edition — immutable editions of a shape space: RFC 8785 canonical JSON, SHA-256 content hashes and
+// the diff between two editions. Pure and deterministic; runs in the browser and on the server alike.
+
+export type { JsonValue } from './types';
+export { EditionError, type EditionErrorCode } from './edition-error';
+export { canonicalJson } from './canonical-json';
+export { utf8Encode } from './utf8-encode';
+export { sha256 } from './sha256';
+export { toHex } from './to-hex';
+export { contentHash } from './content-hash';
