@@ -4,7 +4,6 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   getSortedRowModel,
   useReactTable,
@@ -18,6 +17,7 @@ import { CreateInvitationSchema, type CreateInvitationInput, type Invitation, ty
 import type { Page } from '@/lib/schemas/common';
 import { ROLES, ROLE_LABELS, type Role } from '@/lib/schemas/roles';
 import { Button } from './ui/button';
+import { DataTable } from './ui/data-table';
 import { Field } from './ui/field';
 import { Notice } from './ui/notice';
 
@@ -122,47 +122,9 @@ export function MembersPanel({ lab, canManage, currentUserId }: { lab: string; c
           Members
         </h2>
         {members.isError ? <Notice tone="error">{(members.error as Error).message}</Notice> : null}
-        <table className="mt-4 w-full border-collapse text-sm" data-testid="members-table">
-          <thead>
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id} className="border-b-[0.5px] border-rule-strong text-left">
-                {hg.headers.map((h) => {
-                  const sorted = h.column.getIsSorted();
-                  return (
-                    <th
-                      key={h.id}
-                      scope="col"
-                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                      className="py-2 pr-4 font-medium text-graphite-soft"
-                    >
-                      {h.column.getCanSort() ? (
-                        <button type="button" onClick={h.column.getToggleSortingHandler()} className="hover:text-graphite">
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden="true" className="ml-1 text-xs">
-                            {sorted === 'asc' ? '↑' : sorted === 'desc' ? '↓' : ''}
-                          </span>
-                        </button>
-                      ) : (
-                        flexRender(h.column.columnDef.header, h.getContext())
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-b-[0.5px] border-rule" data-testid={`member-row-${row.original.email}`}>
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="py-2 pr-4 align-middle">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <div className="mt-4">
+          <DataTable table={table} testId="members-table" rowTestId={(row) => `member-row-${row.original.email}`} />
+        </div>
       </section>
 
       {canManage ? <InviteForm lab={lab} onInvited={refresh} /> : null}

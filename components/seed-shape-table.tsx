@@ -1,7 +1,7 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { apiFetch } from '@/lib/api-client';
@@ -9,6 +9,7 @@ import type { Page } from '@/lib/schemas/common';
 import { FAMILY_LABELS } from '@/lib/schemas/descriptor';
 import type { SeedShape } from '@/lib/schemas/seed-shapes';
 import { ShapePreview } from './shape-preview';
+import { DataTable } from './ui/data-table';
 
 const column = createColumnHelper<SeedShape>();
 const PAGE = 100;
@@ -53,41 +54,6 @@ export function SeedShapeTable({ lab, initial }: { lab: string; initial: Page<Se
   });
   if (list.data.items.length === 0) return <p className="text-graphite-muted">No seed shapes yet.</p>;
   return (
-    <table className="w-full border-collapse text-sm" data-testid="seed-shape-table">
-      <thead>
-        {table.getHeaderGroups().map((hg) => (
-          <tr key={hg.id} className="border-b-[0.5px] border-rule-strong text-left">
-            {hg.headers.map((h) => {
-              const sorted = h.column.getIsSorted();
-              return (
-                <th key={h.id} scope="col" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined} className="py-2 pr-4 font-medium text-graphite-soft">
-                  {h.column.getCanSort() ? (
-                    <button type="button" onClick={h.column.getToggleSortingHandler()} className="hover:text-graphite">
-                      {flexRender(h.column.columnDef.header, h.getContext())}
-                      <span aria-hidden="true" className="ml-1 text-xs">
-                        {sorted === 'asc' ? '↑' : sorted === 'desc' ? '↓' : ''}
-                      </span>
-                    </button>
-                  ) : (
-                    flexRender(h.column.columnDef.header, h.getContext())
-                  )}
-                </th>
-              );
-            })}
-          </tr>
-        ))}
-      </thead>
-      <tbody>
-        {table.getRowModel().rows.map((row) => (
-          <tr key={row.id} className="border-b-[0.5px] border-rule">
-            {row.getVisibleCells().map((cell) => (
-              <td key={cell.id} className="py-1.5 pr-4 align-middle">
-                {flexRender(cell.column.columnDef.cell, cell.getContext())}
-              </td>
-            ))}
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <DataTable table={table} testId="seed-shape-table" dense />
   );
 }

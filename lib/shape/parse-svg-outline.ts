@@ -1,5 +1,5 @@
 import type paper from 'paper/dist/paper-core';
-import { paperScope } from './paper-scope';
+import { readSubpaths } from './paper-scope';
 import { ShapeError } from './errors';
 import type { Contour } from './types';
 
@@ -67,17 +67,7 @@ function extractPathData(svgText: string): string {
  */
 export function parseSvgOutline(svgText: string, options: ParseSvgOptions = {}): Contour {
   const d = extractPathData(svgText);
-  if (!/^[\s,MmLlHhVvCcSsQqTtAaZz0-9.eE+-]*$/.test(d)) {
-    throw new ShapeError('svg-parse', 'the path data contains characters that are not SVG path commands or numbers');
-  }
-  const core = paperScope();
-  let compound: paper.CompoundPath;
-  try {
-    compound = new core.CompoundPath({ pathData: d, insert: false });
-  } catch (cause) {
-    throw new ShapeError('svg-parse', 'paper.js could not read the path data', {}, { cause });
-  }
-  const subpaths = compound.children.filter((child): child is paper.Path => child instanceof core.Path && child.segments.length > 0);
+  const { subpaths } = readSubpaths(d);
   if (subpaths.length !== 1) {
     throw new ShapeError('svg-parse', `an outline must be one subpath, found ${subpaths.length}`, { value: subpaths.length });
   }
