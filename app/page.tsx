@@ -1,5 +1,7 @@
 import { SiteHeader } from '@/components/site-header';
 import { ButtonLink } from '@/components/ui/button-link';
+import { contourToSvgPath } from '@/lib/shape/contour-to-svg-path';
+import { synthesizeContour } from '@/lib/shape/synthesize-contour';
 
 const STEPS = [
   ['Seed shapes', 'Describe a seed outline by its Fourier harmonics, or fit harmonics to an outline you upload.'],
@@ -64,12 +66,12 @@ export default function LandingPage() {
   );
 }
 
-/** A ring of radial-frequency outlines around a seed: the kind of space Epicycle builds. */
+/** A ring of radial-frequency outlines around a seed, drawn by the contour engine: the kind of space Epicycle builds. */
 function HeroFigure() {
   const spokes = 8;
   const shapes = Array.from({ length: spokes }, (_, i) => {
     const angle = (2 * Math.PI * i) / spokes;
-    return { cx: 150 + 100 * Math.cos(angle), cy: 150 + 100 * Math.sin(angle), a: 0.12 * Math.cos(angle), b: 0.12 * Math.sin(angle) };
+    return { cx: 150 + 100 * Math.cos(angle), cy: 150 - 100 * Math.sin(angle), a: 0.12 * Math.cos(angle), b: 0.12 * Math.sin(angle), upper: Math.sin(angle) > 1e-9 };
   });
   return (
     <figure className="mx-auto w-full max-w-sm" aria-label="A ring of shapes around a seed shape">
@@ -78,20 +80,18 @@ function HeroFigure() {
         <line x1="40" y1="150" x2="260" y2="150" stroke="#0E5D63" strokeWidth="0.8" strokeDasharray="3 3" />
         <path d={outline(150, 150, 0, 0)} fill="#23262B" />
         {shapes.map((s, i) => (
-          <path key={i} d={outline(s.cx, s.cy, s.a, s.b)} fill={s.cy < 150 ? '#D55E00' : '#0072B2'} />
+          <path key={i} d={outline(s.cx, s.cy, s.a, s.b)} fill={s.upper ? '#D55E00' : '#0072B2'} />
         ))}
       </svg>
     </figure>
   );
 }
 
-function outline(cx: number, cy: number, a2: number, a4: number): string {
-  const samples = 96;
-  const points: string[] = [];
-  for (let i = 0; i < samples; i++) {
-    const t = (2 * Math.PI * i) / samples;
-    const r = 22 * (1 + 0.18 * Math.cos(3 * t) + a2 * Math.cos(2 * t) + a4 * Math.cos(5 * t + 0.6));
-    points.push(`${(cx + r * Math.cos(t)).toFixed(2)},${(cy - r * Math.sin(t)).toFixed(2)}`);
-  }
-  return `M${points.join('L')}Z`;
+/** A seed with a third harmonic, moved along its 2nd and 5th harmonics, in page coordinates. */
+function outline(cx: number, cy: number, a2: number, a5: number): string {
+  const contour = synthesizeContour(
+    { family: 'radial', baseRadius: 22, terms: [{ k: 2, amplitude: a2, phase: 0 }, { k: 3, amplitude: 0.18, phase: 0 }, { k: 5, amplitude: a5, phase: 0.6 }] },
+    128,
+  );
+  return contourToSvgPath({ x: contour.x.map((v) => v + cx), y: contour.y.map((v) => v - cy) }, { decimals: 2 });
 }

@@ -9,6 +9,7 @@ test('the landing page says what Epicycle does and passes an axe scan', async ({
   await expect(page.getByRole('heading', { level: 1 })).toContainText('Novel shapes');
   await expect(page.getByTestId('brand')).toBeVisible();
 
+  await page.screenshot({ path: 'test-results/screens/landing.png', fullPage: true });
   const results = await new AxeBuilder({ page }).analyze();
   const serious = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
   expect(serious.map((v) => `${v.id}: ${v.help}`)).toEqual([]);
