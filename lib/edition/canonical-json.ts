@@ -1,9 +1,5 @@
 import { EditionError } from './edition-error';
-
-/** Appends one reference token to a JSON Pointer (RFC 6901 §4: `~` → `~0`, `/` → `~1`). */
-function pointer(path: string, token: string | number): string {
-  return `${path}/${String(token).replace(/~/g, '~0').replace(/\//g, '~1')}`;
-}
+import { jsonPointer as pointer } from './json-pointer';
 
 /** True when `text` holds a UTF-16 surrogate that is not part of a pair (not valid I-JSON, RFC 7493 §2.1). */
 function hasLoneSurrogate(text: string): boolean {

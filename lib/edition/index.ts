@@ -8,3 +8,8 @@ export { utf8Encode } from './utf8-encode';
 export { sha256 } from './sha256';
 export { toHex } from './to-hex';
 export { contentHash } from './content-hash';
+export type { ChangedStimulus, EditionDiff, EditionStimulus, ParameterChange, StimulusChangeField } from './types';
+export { jsonPointer } from './json-pointer';
+export { numericDifference } from './numeric-difference';
+export { diffEditions, EDITION_DIFF_TOLERANCE } from './diff-editions';
+export { diffParameters } from './diff-parameters';
