@@ -6,6 +6,7 @@ export const LAB_SECTIONS = [
   { segment: 'seed-shapes', label: 'Seed shapes' },
   { segment: 'spaces', label: 'Shape spaces' },
   { segment: 'settings/members', label: 'Members' },
+  { segment: 'settings/audit', label: 'Audit log' },
 ] as const;
 
 export function LabNav({ lab }: { lab: string }) {

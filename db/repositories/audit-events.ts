@@ -1,5 +1,6 @@
 import type { DbHandle as Handle } from '../client';
 import type { AuditEventRow } from '../database';
+import { decodeCursor } from '../pagination';
 
 export interface NewAuditEvent {
   labId: string | null;
@@ -25,12 +26,23 @@ export async function insertAuditEvent(db: Handle, event: NewAuditEvent): Promis
     .execute();
 }
 
-export function listAuditEventsForLab(db: Handle, labId: string, limit = 100): Promise<AuditEventRow[]> {
-  return db
+/** A lab's audit events, newest first, with the actor's name, keyset-paginated; fetches `limit + 1` rows. */
+export async function listAuditEventsForLab(
+  db: Handle,
+  labId: string,
+  page: { cursor?: string | undefined; limit: number } = { limit: 100 },
+): Promise<(AuditEventRow & { actor_name: string | null })[]> {
+  let q = db
     .selectFrom('audit_events')
-    .selectAll()
-    .where('lab_id', '=', labId)
-    .orderBy('created_at', 'desc')
-    .limit(limit)
-    .execute();
+    .leftJoin('users', 'users.id', 'audit_events.actor_user_id')
+    .selectAll('audit_events')
+    .select('users.name as actor_name')
+    .where('audit_events.lab_id', '=', labId);
+  if (page.cursor) {
+    const { at, id } = decodeCursor(page.cursor);
+    q = q.where((eb) =>
+      eb.or([eb('audit_events.created_at', '<', new Date(at)), eb.and([eb('audit_events.created_at', '=', new Date(at)), eb('audit_events.id', '<', id)])]),
+    );
+  }
+  return q.orderBy('audit_events.created_at', 'desc').orderBy('audit_events.id', 'desc').limit(page.limit + 1).execute();
 }

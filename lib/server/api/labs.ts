@@ -13,6 +13,8 @@ import {
 } from '@/lib/schemas/account';
 import { pageOf, PageQuerySchema } from '@/lib/schemas/common';
 import { MyLabSchema } from '@/lib/schemas/labs';
+import { AuditEventSchema } from '@/lib/schemas/audit';
+import { listAuditEvents } from '../services/audit';
 import { paginate } from '../pagination';
 import { getDb } from '../db';
 import { defineRoute } from '../http';
@@ -144,4 +146,17 @@ export const revokeLabInvitation = defineRoute({
     await revokeInvitation(getDb(), labActor(), params.invitationId);
     return { ok: true as const };
   },
+});
+
+export const listAuditEventsRoute = defineRoute({
+  id: 'listAuditEvents',
+  method: 'GET',
+  path: '/api/v1/labs/{lab}/audit-events',
+  summary: "The lab's audit log, newest first",
+  tags: ['labs'],
+  access: { kind: 'lab', action: 'audit:read' },
+  params: LabPathSchema,
+  query: PageQuerySchema,
+  response: pageOf(AuditEventSchema),
+  handler: ({ labActor, query }) => listAuditEvents(getDb(), labActor(), query),
 });
