@@ -1,0 +1,15 @@
+// lib/stats — psychometric fitting by maximum likelihood (logistic and cumulative normal, symmetric lapse, bounded
+// spread). Pure and deterministic: the browser and the jobs run the same code.
+
+export type { BoundHit, FitOptions, LapseOption, Link, PsychometricData, PsychometricFit } from './types';
+export { StatsError, type StatsErrorCode } from './stats-error';
+
+export { normalCdf, INV_SQRT_2PI } from './normal-cdf';
+export { linkFunction, type LinkFunction } from './link-function';
+export { validatePsychometricData } from './validate-psychometric-data';
+export { spreadBoundsFor, DEFAULT_SPREAD_BOUNDS } from './spread-bounds-for';
+export { binomialLogLikelihood, type PsychometricParameters } from './binomial-log-likelihood';
+export { saturatedLogLikelihood } from './saturated-log-likelihood';
+export { fitAtLapse, type LapseConditionalFit } from './fit-at-lapse';
+export { profileLapse, type LapseProfileFit } from './profile-lapse';
+export { fitPsychometric } from './fit-psychometric';
