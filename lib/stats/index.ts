@@ -13,3 +13,10 @@ export { saturatedLogLikelihood } from './saturated-log-likelihood';
 export { fitAtLapse, type LapseConditionalFit } from './fit-at-lapse';
 export { profileLapse, type LapseProfileFit } from './profile-lapse';
 export { fitPsychometric } from './fit-psychometric';
+export { evaluatePsychometric } from './evaluate-psychometric';
+
+// Bootstrap
+export { seededRandom, MAX_SEED } from './seeded-random';
+export { drawBinomial } from './draw-binomial';
+export { percentile } from './percentile';
+export { bootstrapFit, type BootstrapOptions, type BootstrapResult, type Interval } from './bootstrap-fit';
