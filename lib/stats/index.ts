@@ -20,3 +20,11 @@ export { seededRandom, MAX_SEED } from './seeded-random';
 export { drawBinomial } from './draw-binomial';
 export { percentile } from './percentile';
 export { bootstrapFit, type BootstrapOptions, type BootstrapResult, type Interval } from './bootstrap-fit';
+
+// Slope comparison
+export { logGamma } from './log-gamma';
+export { regularizedGammaQ } from './regularized-gamma-q';
+export { chiSquareSurvival } from './chi-square-survival';
+export { goldenSectionMaximum } from './golden-section-maximum';
+export { fitCommonSlope, type CommonSlopeFit } from './fit-common-slope';
+export { compareSlopes, type CompareSlopesOptions, type SlopeComparison } from './compare-slopes';
