@@ -1,5 +1,6 @@
 import { rasterizeContour } from '../shape/rasterize-contour';
 import type { Bitmask, Contour, RasterExtent } from '../shape/types';
+import { fillPairwiseRdm } from './fill-pairwise-rdm';
 import { SpaceError } from './space-error';
 import type { Rdm } from './types';
 
@@ -7,7 +8,6 @@ import type { Rdm } from './types';
 export const DEFAULT_SILHOUETTE_RESOLUTION = 256;
 /** The common extent leaves this fraction of its size free on every side, so no shape touches the raster's edge. */
 const EXTENT_MARGIN = 0.02;
-const PROGRESS_REPORTS = 50;
 
 /** Options of `silhouetteRdm`. */
 export interface SilhouetteRdmOptions {
@@ -98,33 +98,21 @@ export function silhouetteRdm(contours: readonly Contour[], options: SilhouetteR
   const resolution = options.resolution ?? DEFAULT_SILHOUETTE_RESOLUTION;
   if (!Number.isInteger(resolution) || resolution < 1) throw new SpaceError('invalid-argument', `resolution = ${resolution} must be a whole number of pixels ≥ 1`);
   const n = contours.length;
-  const values = new Float64Array(n * n);
-  if (n === 0) return { size: 0, values };
+  if (n === 0) return { size: 0, values: new Float64Array(0) };
   // Phase 1: one extent, one mask per contour.
   const extent = options.extent ?? unionExtent(contours);
   const masks = contours.map((c) => summarize(rasterizeContour(c, { resolution, extent })));
   const wordsPerRow = Math.ceil(resolution / 32);
   // Phase 2: the pairs.
-  const totalPairs = (n * (n - 1)) / 2;
-  const every = Math.max(1, Math.ceil(totalPairs / PROGRESS_REPORTS));
-  let done = 0;
-  let nextReport = every;
-  for (let i = 0; i < n; i++) {
-    const a = masks[i] as MaskSummary;
-    for (let j = i + 1; j < n; j++) {
+  return fillPairwiseRdm(
+    n,
+    (i, j) => {
+      const a = masks[i] as MaskSummary;
       const b = masks[j] as MaskSummary;
       const intersection = a.count === 0 || b.count === 0 ? 0 : intersectionCount(a, b, wordsPerRow);
       const union = a.count + b.count - intersection;
-      const d = union === 0 ? 0 : 1 - intersection / union;
-      values[i * n + j] = d;
-      values[j * n + i] = d;
-    }
-    done += n - 1 - i;
-    if (options.onProgress && done >= nextReport) {
-      options.onProgress(done / totalPairs);
-      nextReport = done + every;
-    }
-  }
-  options.onProgress?.(1);
-  return { size: n, values };
+      return union === 0 ? 0 : 1 - intersection / union;
+    },
+    options.onProgress,
+  );
 }

@@ -1,4 +1,5 @@
 import { binomialLogLikelihood } from './binomial-log-likelihood';
+import { BOUND_TOLERANCE, LOG_LIKELIHOOD_TOLERANCE, MAX_HALVINGS, MAX_ITERATIONS, STEP_TOLERANCE, VARIANCE_FLOOR } from './fisher-scoring-limits';
 import { linkFunction } from './link-function';
 import type { BoundHit, Link, PsychometricData } from './types';
 
@@ -9,19 +10,6 @@ export interface LapseConditionalFit {
   readonly logLikelihood: number;
   readonly spreadAtBound: BoundHit;
 }
-
-/** Fisher scoring converges quadratically near the optimum; 200 steps only matter for pathological data. */
-const MAX_ITERATIONS = 200;
-/** Step halvings before a step is abandoned (2⁻⁴⁰ of a Newton step is below float resolution of the parameters). */
-const MAX_HALVINGS = 40;
-/** Stop when an accepted step raises ℓ by less than this (absolute, natural-log units). */
-const LOG_LIKELIHOOD_TOLERANCE = 1e-11;
-/** Keeps ψ(1 − ψ) away from 0 in the weights when λ = 0 and a level sits deep in a tail. */
-const VARIANCE_FLOOR = 1e-300;
-/** Relative parameter change below which a step counts as no move (with a tiny gain, convergence). */
-const STEP_TOLERANCE = 1e-10;
-/** Relative distance of the slope from a bound below which it counts as on that bound. */
-const BOUND_TOLERANCE = 1e-9;
 
 /**
  * Maximum-likelihood threshold and spread at a fixed symmetric lapse λ (ψ = λ + (1 − 2λ)F((x − α)/β)), by Fisher

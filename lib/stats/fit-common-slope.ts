@@ -1,4 +1,5 @@
 import { binomialLogLikelihood } from './binomial-log-likelihood';
+import { BOUND_TOLERANCE, LOG_LIKELIHOOD_TOLERANCE, MAX_HALVINGS, MAX_ITERATIONS, STEP_TOLERANCE, VARIANCE_FLOOR } from './fisher-scoring-limits';
 import { linkFunction } from './link-function';
 import type { BoundHit, Link, PsychometricData } from './types';
 
@@ -9,14 +10,6 @@ export interface CommonSlopeFit {
   readonly logLikelihood: number;
   readonly spreadAtBound: BoundHit;
 }
-
-/** Same stopping rules as `fitAtLapse` (see there). */
-const MAX_ITERATIONS = 200;
-const MAX_HALVINGS = 40;
-const LOG_LIKELIHOOD_TOLERANCE = 1e-11;
-const STEP_TOLERANCE = 1e-10;
-const VARIANCE_FLOOR = 1e-300;
-const BOUND_TOLERANCE = 1e-9;
 
 /**
  * Maximum-likelihood fit of G psychometric functions sharing one spread (and a fixed symmetric lapse λ), each with
