@@ -94,7 +94,9 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
   const onDrawn = useCallback(
     (drawMs: number) => {
       const total = (live?.ms ?? 0) + drawMs;
-      performance.measure('space-frame', { start: performance.now() - total, duration: total });
+      const now = performance.now();
+      performance.measure('space-frame', { start: now - total, duration: total });
+      performance.measure('space-draw', { start: now - drawMs, duration: drawMs });
       if (frameRef.current) {
         frameRef.current.textContent = `${canvasStimuli.length} stimuli · synthesis ${live?.ms.toFixed(1)} ms + drawing ${drawMs.toFixed(1)} ms`;
         frameRef.current.dataset.frameMs = total.toFixed(2);

@@ -57,8 +57,9 @@ test('the live view redraws 441 stimuli × 256 samples: frame time measured with
   const read = (name: string) => page.evaluate((n) => performance.getEntriesByName(n).map((e) => e.duration).slice(-20), name);
   const frames = await read('space-frame');
   const synthesis = await read('space-synthesis');
+  const drawing = await read('space-draw');
   const last = [...frames].sort((a, b) => a - b);
-  const figures = { stimuli: 441, samples: 256, frames: last.length, median_ms: median(frames), max_ms: last.at(-1), synthesis_median_ms: median(synthesis) };
+  const figures = { stimuli: 441, samples: 256, frames: last.length, median_ms: median(frames), max_ms: last.at(-1), synthesis_median_ms: median(synthesis), draw_median_ms: median(drawing) };
   mkdirSync('test-results/bench', { recursive: true });
   writeFileSync('test-results/bench/space-frame.json', JSON.stringify(figures) + '\n');
   console.log(`[bench] space live view ${JSON.stringify(figures)}`);
