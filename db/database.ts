@@ -99,10 +99,49 @@ export interface ShapeSpacesTable {
   anisotropy: ColumnType<{ designed: number | null; equalized: number | null }, string, string>;
   stimulus_count: number;
   version: Generated<number>;
+  /** The space's category boundaries (`lib/boundary` Boundary[]), edited apart from the definition. */
+  boundaries: ColumnType<unknown, string | undefined, string>;
+  boundaries_version: Generated<number>;
   created_by: string | null;
   updated_by: string | null;
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
+}
+
+export type EditionState = 'draft' | 'in_review' | 'approved' | 'returned';
+
+/** A frozen snapshot of a space. A trigger keeps the snapshot, hash and identity columns immutable. */
+export interface EditionsTable {
+  id: Generated<string>;
+  lab_id: string;
+  space_id: string;
+  number: number;
+  snapshot: ColumnType<unknown, string, never>;
+  content_hash: string;
+  engine_version: string;
+  stimulus_count: number;
+  change_note: string;
+  author_id: string | null;
+  created_at: CreatedAt;
+  state: ColumnType<EditionState, EditionState | undefined, EditionState>;
+  submitted_by: string | null;
+  submitted_at: Date | null;
+  decided_by: string | null;
+  decided_at: Date | null;
+  decision_note: string | null;
+  superseded_by: string | null;
+}
+
+export interface EditionCommentsTable {
+  id: Generated<string>;
+  lab_id: string;
+  edition_id: string;
+  stimulus_id: string | null;
+  body: string;
+  author_id: string | null;
+  created_at: CreatedAt;
+  resolved_by: string | null;
+  resolved_at: Date | null;
 }
 
 /** The Kysely database: one interface per table. */
@@ -116,6 +155,8 @@ export interface Database {
   password_reset_tokens: PasswordResetTokensTable;
   seed_shapes: SeedShapesTable;
   shape_spaces: ShapeSpacesTable;
+  editions: EditionsTable;
+  edition_comments: EditionCommentsTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -126,3 +167,5 @@ export type MembershipRow = Selectable<MembershipsTable>;
 export type InvitationRow = Selectable<InvitationsTable>;
 export type SeedShapeRow = Selectable<SeedShapesTable>;
 export type ShapeSpaceRow = Selectable<ShapeSpacesTable>;
+export type EditionRow = Selectable<EditionsTable>;
+export type EditionCommentRow = Selectable<EditionCommentsTable>;

@@ -3,6 +3,7 @@ import * as m20261202040000 from './20261202040000_create_labs_and_audit_events'
 import * as m20261202050000 from './20261202050000_create_users_memberships_invitations';
 import * as m20261202060000 from './20261202060000_create_seed_shapes';
 import * as m20261202070000 from './20261202070000_create_shape_spaces';
+import * as m20261202080000 from './20261202080000_create_boundaries_and_editions';
 
 /**
  * Every migration, by name, in order. Listed statically so the same set runs under tsx, vitest and the app
@@ -13,4 +14,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202050000_create_users_memberships_invitations': m20261202050000,
   '20261202060000_create_seed_shapes': m20261202060000,
   '20261202070000_create_shape_spaces': m20261202070000,
+  '20261202080000_create_boundaries_and_editions': m20261202080000,
 };

@@ -9,6 +9,7 @@ export type ShapeSpaceListRow = ShapeSpaceRow & {
   seed_descriptor: unknown;
   updated_by_name: string | null;
   created_by_name: string | null;
+  edition_count: number | null;
 };
 
 function withJoins(db: DbHandle) {
@@ -18,7 +19,8 @@ function withJoins(db: DbHandle) {
     .leftJoin('users as updater', 'updater.id', 'shape_spaces.updated_by')
     .leftJoin('users as creator', 'creator.id', 'shape_spaces.created_by')
     .selectAll('shape_spaces')
-    .select([
+    .select((eb) => [
+      eb.selectFrom('editions').whereRef('editions.space_id', '=', 'shape_spaces.id').select((e) => e.fn.countAll<number>().as('n')).as('edition_count'),
       'seed_shapes.name as seed_name',
       'seed_shapes.family as seed_family',
       'seed_shapes.descriptor as seed_descriptor',
@@ -90,6 +92,18 @@ export function updateShapeSpace(db: DbHandle, labId: string, id: string, expect
     .where('id', '=', id)
     .where('version', '=', expectedVersion)
     .returningAll()
+    .executeTakeFirst();
+}
+
+/** Replaces a space's boundaries when their stored version is `expectedVersion`; undefined if someone saved in between. */
+export function updateSpaceBoundaries(db: DbHandle, labId: string, id: string, expectedVersion: number, userId: string, boundaries: unknown): Promise<{ boundaries_version: number } | undefined> {
+  return db
+    .updateTable('shape_spaces')
+    .set((eb) => ({ boundaries: JSON.stringify(boundaries), boundaries_version: eb('boundaries_version', '+', 1), updated_by: userId, updated_at: new Date() }))
+    .where('lab_id', '=', labId)
+    .where('id', '=', id)
+    .where('boundaries_version', '=', expectedVersion)
+    .returning('boundaries_version')
     .executeTakeFirst();
 }
 

@@ -43,3 +43,41 @@ export interface ParameterChange {
   readonly before: unknown;
   readonly after: unknown;
 }
+
+/** One stimulus of a frozen edition: a layout stimulus, or a category prototype of one boundary. */
+export interface SnapshotStimulus extends EditionStimulus {
+  readonly kind: 'layout' | 'prototype';
+  readonly polar: { readonly rho: number; readonly angle: number };
+  /** Added to every synthesised point (see `lib/space` `Stimulus.contourOffset`). */
+  readonly contourOffset: readonly [number, number];
+  /** Prototypes only: whose, and which side. */
+  readonly prototypeOf?: { readonly boundaryKey: string; readonly side: 'A' | 'B' };
+}
+
+/** A boundary as frozen: the prototype distance is always resolved. */
+export interface SnapshotBoundary {
+  readonly key: string;
+  readonly label: string;
+  readonly angleDeg: number;
+  readonly prototypeDistance: number;
+}
+
+/**
+ * Everything an edition freezes, as plain JSON: hashed with `contentHash` (canonical JSON, RFC 8785), so two
+ * snapshots with the same content have the same hash whatever the key order.
+ */
+export interface EditionSnapshot {
+  readonly format: 1;
+  readonly engineVersion: string;
+  readonly space: { readonly id: string; readonly name: string };
+  readonly seed: { readonly id: string; readonly name: string; readonly descriptor: unknown };
+  readonly definition: {
+    readonly axes: unknown;
+    readonly extent: number;
+    readonly layout: unknown;
+    readonly normalization: unknown;
+    readonly equalization: unknown;
+  };
+  readonly boundaries: readonly SnapshotBoundary[];
+  readonly stimuli: readonly SnapshotStimulus[];
+}

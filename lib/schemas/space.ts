@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { LabPathSchema } from './account';
+import { BoundarySchema } from './boundary';
 import { DescriptorSchema, FamilySchema, MAX_HARMONIC } from './descriptor';
 
 /** Limits of a shape space (DESIGN: up to 2,000 stimuli; the live view draws up to 441 at once). */
@@ -84,6 +85,10 @@ export const ShapeSpaceSchema = z.object({
   anisotropy: z.object({ designed: z.number().nullable(), equalized: z.number().nullable() }),
   stimulusCount: z.number().int(),
   version: z.number().int(),
+  boundaries: z.array(BoundarySchema),
+  boundariesVersion: z.number().int(),
+  /** Editions frozen from this space so far. */
+  editionCount: z.number().int(),
   createdBy: z.string().nullable(),
   updatedBy: z.string().nullable(),
   createdAt: z.string(),

@@ -85,3 +85,4 @@ export { splitPathData } from './split-path-data';
 
 // Editor metrics and thumbnails
 export { measureShape, sampleForMeasures, thumbnailPath, MEASURE_SAMPLES, type ShapeMeasures } from './measure-shape';
+export { ENGINE_VERSION } from './engine-version';

@@ -52,6 +52,7 @@ export { compileAxes } from './compile-axes';
 export { normalizeStimulus } from './normalize-stimulus';
 export { equalizationMap } from './equalization-map';
 export { centreStimulus } from './centre-stimulus';
+export { stimulusAt } from './stimulus-at';
 export { generateSpace } from './generate-space';
 export { checkDefinition } from './check-definition';
 export { checkSpace } from './check-space';

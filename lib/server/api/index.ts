@@ -5,3 +5,4 @@ export * from './account';
 export * from './labs';
 export * from './seed-shapes';
 export * from './shape-spaces';
+export * from './editions';

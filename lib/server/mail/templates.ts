@@ -46,3 +46,27 @@ export function passwordResetMail(p: { to: string; url: string }) {
     'If you did not ask for it, your password is unchanged; ignore this message.',
   );
 }
+
+export function editionSubmittedMail(p: { to: string; submitter: string; spaceName: string; number: number; changeNote: string; url: string }) {
+  return mail(
+    p.to,
+    `Review requested: ${p.spaceName}, edition ${p.number}`,
+    [`${p.submitter} asks you to review edition ${p.number} of ${p.spaceName}.`, p.changeNote ? `Their note: ${p.changeNote}` : 'They left no note.'],
+    { label: 'Open the review', url: p.url },
+    'You receive this because you review editions in this lab.',
+  );
+}
+
+export function editionDecidedMail(p: { to: string; decider: string; spaceName: string; number: number; approved: boolean; note: string; url: string }) {
+  return mail(
+    p.to,
+    `${p.spaceName}, edition ${p.number}: ${p.approved ? 'approved' : 'returned'}`,
+    [
+      p.approved ? `${p.decider} approved edition ${p.number} of ${p.spaceName}. Studies and packs can now use it.` : `${p.decider} returned edition ${p.number} of ${p.spaceName}.`,
+      p.note ? `Their note: ${p.note}` : 'They left no note.',
+      ...(p.approved ? [] : ['Change the space, then freeze a new edition; it supersedes this one.']),
+    ],
+    { label: 'Open the edition', url: p.url },
+    'You receive this because you froze this edition.',
+  );
+}

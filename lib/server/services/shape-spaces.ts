@@ -10,12 +10,15 @@ import {
   insertShapeSpace,
   listShapeSpaces as listShapeSpaceRows,
   updateShapeSpace as updateShapeSpaceRow,
+  updateSpaceBoundaries,
   type ShapeSpaceListRow,
 } from '@/db/repositories/shape-spaces';
 import { anisotropyIndex, checkSpace, equalizeSpace, generateSpace, stimulusMetrics, type Equalization, type SpaceDefinition, type SpaceFailure } from '@/lib/space';
 import type { ShapeDescriptor } from '@/lib/shape';
 import type { Page, PageQuery } from '@/lib/schemas/common';
 import { DescriptorSchema, type DescriptorInput } from '@/lib/schemas/descriptor';
+import { BoundarySchema, type BoundaryValue } from '@/lib/schemas/boundary';
+import { BoundaryError, checkBoundaries } from '@/lib/boundary';
 import { EqualizationSchema, SpaceSettingsSchema, type ShapeSpace, type SpaceSettings } from '@/lib/schemas/space';
 import { authorize, type LabActor } from './access';
 
@@ -63,6 +66,9 @@ function toShapeSpace(row: ShapeSpaceListRow): ShapeSpace {
     anisotropy: row.anisotropy,
     stimulusCount: row.stimulus_count,
     version: row.version,
+    boundaries: BoundarySchema.array().parse(row.boundaries),
+    boundariesVersion: row.boundaries_version,
+    editionCount: Number(row.edition_count ?? 0),
     createdBy: row.created_by_name,
     updatedBy: row.updated_by_name,
     createdAt: row.created_at.toISOString(),
@@ -159,13 +165,56 @@ function stripUndefined<T extends object>(o: T): Partial<T> {
   return Object.fromEntries(Object.entries(o).filter(([k, v]) => v !== undefined && k !== 'version')) as Partial<T>;
 }
 
+const FOREIGN_KEY_VIOLATION = '23503';
+
 export async function deleteShapeSpace(db: Db, actor: LabActor, id: string): Promise<void> {
   authorize(actor, 'space:write');
+  try {
+    await db.transaction().execute(async (trx) => {
+      const before = await getShapeSpaceRow(trx, actor.labId, id);
+      if (!(await deleteShapeSpaceRow(trx, actor.labId, id))) throw notFound('space', 'No such shape space in this lab.');
+      await insertAuditEvent(trx, { labId: actor.labId, actorUserId: actor.userId, action: 'space.delete', subjectType: 'space', subjectId: id, details: { name: before.name } });
+    });
+  } catch (error) {
+    if ((error as { code?: string }).code === FOREIGN_KEY_VIOLATION) {
+      throw conflict('space', 'This space has editions, which are permanent records, so it cannot be deleted.');
+    }
+    throw error;
+  }
+}
+
+/**
+ * Replaces the space's category boundaries (Designers, Experimenters and Owners), checked by `lib/boundary`
+ * against the space: unique keys, angles in [0°, 180°), prototypes inside the space.
+ */
+export async function putSpaceBoundaries(db: Db, actor: LabActor, id: string, input: { boundaries: BoundaryValue[]; version: number }): Promise<ShapeSpace> {
+  authorize(actor, 'boundary:write');
   await db.transaction().execute(async (trx) => {
-    const before = await getShapeSpaceRow(trx, actor.labId, id);
-    if (!(await deleteShapeSpaceRow(trx, actor.labId, id))) throw notFound('space', 'No such shape space in this lab.');
-    await insertAuditEvent(trx, { labId: actor.labId, actorUserId: actor.userId, action: 'space.delete', subjectType: 'space', subjectId: id, details: { name: before.name } });
+    const space = toShapeSpace(await getShapeSpaceRow(trx, actor.labId, id));
+    const tooFar = input.boundaries.filter((b) => b.prototypeDistance !== null && b.prototypeDistance > space.extent);
+    if (tooFar.length > 0) {
+      throw validationError('boundary', `Prototypes must lie inside the space (distance at most ρmax = ${space.extent}): ${tooFar.map((b) => b.key).join(', ')}.`, {
+        boundaries: ['Prototype distance beyond ρmax'],
+      });
+    }
+    try {
+      checkBoundaries(input.boundaries.map((b) => ({ key: b.key, angleDeg: b.angleDeg, ...(b.prototypeDistance === null ? {} : { prototypeDistance: b.prototypeDistance }) })));
+    } catch (error) {
+      if (error instanceof BoundaryError) throw validationError('boundary', error.message, { boundaries: [error.message] });
+      throw error;
+    }
+    const row = await updateSpaceBoundaries(trx, actor.labId, id, input.version, actor.userId, input.boundaries);
+    if (!row) throw conflict('boundary', `Someone changed these boundaries after you opened them (now version ${space.boundariesVersion}). Reload to see their change.`, { version: ['Out of date'] });
+    await insertAuditEvent(trx, {
+      labId: actor.labId,
+      actorUserId: actor.userId,
+      action: 'space.boundaries',
+      subjectType: 'space',
+      subjectId: id,
+      details: { boundaries: input.boundaries.map((b) => `${b.key} @ ${b.angleDeg}°`), version: row.boundaries_version },
+    });
   });
+  return getShapeSpace(db, actor, id);
 }
 
 /** Every stimulus of a space with its coordinates, descriptor and metrics (what lab scripts fetch). */
