@@ -107,10 +107,19 @@ export const MANIFEST_SCHEMA = {
           required: ['seed', 'axes', 'extent', 'layout', 'normalization'],
           properties: {
             seed: { $ref: '#/$defs/descriptor' },
-            axes: { type: 'array', minItems: 2, maxItems: 2, items: { type: 'object', required: ['label', 'changes'] } },
+            axes: {
+              type: 'array',
+              minItems: 2,
+              maxItems: 2,
+              items: { type: 'object', required: ['label', 'changes'], properties: { label: { type: 'string' }, changes: { type: 'array', items: { type: 'object' } } } },
+            },
             extent: positive,
             layout: { type: 'object', required: ['kind'], properties: { kind: { enum: ['rings', 'lattice', 'diameters'] } } },
-            normalization: { type: 'object', required: ['scale', 'centroid'] },
+            normalization: {
+              type: 'object',
+              required: ['scale', 'centroid'],
+              properties: { scale: { enum: ['equal-area-radius', 'area', 'max-radius', 'perimeter', 'none'] }, centroid: { type: 'boolean' } },
+            },
           },
         },
         layoutStimuli: { type: 'integer', minimum: 1 },
