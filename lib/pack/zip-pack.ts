@@ -8,7 +8,7 @@ const ZIP_PLATFORM = 'DOS';
 /**
  * Streams a deterministic zip of `files` to `sink`: entries in the given order (callers sort by path), no folder
  * entries (`createFolders: false`), every entry dated `date` (an MS-DOS date and time to 2 s, which jszip
- * writes from the UTC fields, so the machine's time zone does not matter), DEFLATE at level 6 or STORE per file, DOS platform, no comment. The same files and
+ * writes from the UTC fields, so the machine's time zone does not matter), DEFLATE at `PACK_LIMITS.deflateLevel` or STORE per file, DOS platform, no comment. The same files and
  * date always give the same bytes. Uses jszip's internal stream, so the archive is never held whole.
  */
 export async function zipPack(files: readonly PackFile[], date: Date, sink: (chunk: Uint8Array) => void | Promise<void>): Promise<void> {
