@@ -1,0 +1,236 @@
+import { BoundaryError } from '../boundary/boundary-error';
+import { classifyStimuli } from '../boundary/classify-stimuli';
+import { sha256 } from '../edition/sha256';
+import { toHex } from '../edition/to-hex';
+import { drawnSize } from '../render/drawn-size';
+import { frameStimuli } from '../render/frame-stimuli';
+import { RenderError } from '../render/render-error';
+import { resolveRender } from '../render/resolve-render';
+import { stimulusSvg } from '../render/stimulus-svg';
+import { SpaceError } from '../space/space-error';
+import { descriptorArea } from '../shape/descriptor-area';
+import { descriptorPerimeter } from '../shape/descriptor-perimeter';
+import { checkPackInput } from './check-pack-input';
+import { MANIFEST_SCHEMA } from './manifest-schema';
+import { modelRdms } from './model-rdms';
+import { nonApprovedNotice } from './non-approved-notice';
+import { PackError } from './pack-error';
+import { PACK_LIMITS, PRODUCT_NAME } from './pack-limits';
+import { packReadme } from './pack-readme';
+import { packStimuli } from './pack-stimuli';
+import { rdmTsv } from './rdm-tsv';
+import { sha256Sums } from './sha256-sums';
+import { stimuliCsv } from './stimuli-csv';
+import { synthesizeStimuli } from './synthesize-stimuli';
+import { trialListCsv } from './trial-list-csv';
+import { zipPack } from './zip-pack';
+import type { BuiltPack, ManifestRdm, ManifestStimulus, PackBackends, PackFile, PackInput, PackManifest, PackStage } from './types';
+
+const DEGREES_PER_RADIAN = 180 / Math.PI;
+const CONTRAST_BASIS = 'Nominal sRGB values (IEC 61966-2-1 decoding, WCAG 2.x relative luminance), not measured luminance; calibrate with a photometer for luminance-critical work.';
+
+const RDM_FILES: readonly Omit<ManifestRdm, 'path'>[] = [
+  { name: 'design', unit: 'axis units', description: 'Euclidean distance between designed coordinates (a, b).' },
+  { name: 'contour', unit: 'shape units', description: 'RMS distance between corresponding outline points after the best translation, rotation and start point.' },
+  { name: 'silhouette', unit: '1 - IoU (0 to 1)', description: 'One minus intersection over union of the filled shapes on one common 256 x 256 raster.' },
+];
+
+const encoder = new TextEncoder();
+const byPath = (p: { path: string }, q: { path: string }): number => (p.path < q.path ? -1 : p.path > q.path ? 1 : 0);
+const defaultSha256Hex = (bytes: Uint8Array): string => toHex(sha256(bytes));
+
+/** Stage: refuse unusable input with every reason, mapping the cores' own errors onto `PackError`. */
+function checked<T>(work: () => T): T {
+  try {
+    return work();
+  } catch (error) {
+    if (error instanceof SpaceError) throw new PackError('invalid-space', error.message, error.failures.map((f) => ({ field: `definition.${f.id}`, code: f.code, message: f.reason })), { cause: error });
+    if (error instanceof BoundaryError) throw new PackError('invalid-input', error.message, [{ field: 'boundaries', code: error.code, message: error.message }], { cause: error });
+    if (error instanceof RenderError) {
+      const code = error.code === 'does-not-fit' ? 'invalid-space' : 'invalid-input';
+      throw new PackError(code, error.message, error.issues.map((i) => ({ field: `render.${i.field}`, code: i.code, message: i.message })), { cause: error });
+    }
+    throw error;
+  }
+}
+
+/**
+ * Builds a stimulus pack from plain data, deterministically: the same input gives the same manifest and the same
+ * zip bytes. Pipeline: check the input (`checkPackInput`, `resolveRender`) → generate the layout stimuli and the
+ * boundaries' prototypes (`packStimuli`) → synthesise and validate every outline at `render.samples` points →
+ * one frame for all (`frameStimuli`) → SVG per stimulus → hand every pixel-unit SVG to `backends.renderPng` at
+ * once → model RDMs of the layout stimuli while the PNGs render → categories and signed distances
+ * (`classifyStimuli`), metrics, manifest, tables, README, schema, SHA256SUMS. Every file is held once; the zip
+ * is streamed by `writeZip`. Raises `PackError` (`invalid-input`, `invalid-space`, `render-failed`). Pure apart
+ * from the back ends it is given; nothing here touches Node.
+ */
+export async function buildPack(input: PackInput, backends: PackBackends): Promise<BuiltPack> {
+  const timings: Record<PackStage, number> = { check: 0, synthesize: 0, svg: 0, rdm: 0, png: 0, tables: 0, hash: 0 };
+  const hashHex = backends.sha256Hex ?? defaultSha256Hex;
+  const progress = backends.onProgress;
+  const time = <T>(stage: PackStage, work: () => T): T => {
+    const start = performance.now();
+    const hashBefore = timings.hash;
+    try {
+      return work();
+    } finally {
+      // Hashing inside a stage is counted under 'hash' only, so the stages add up to the whole.
+      timings[stage] += performance.now() - start - (stage === 'hash' ? 0 : timings.hash - hashBefore);
+    }
+  };
+  const hashed = (path: string, data: Uint8Array, compression: PackFile['compression'] = 'DEFLATE'): PackFile => ({
+    path,
+    sha256: time('hash', () => hashHex(data)),
+    bytes: data.length,
+    data,
+    compression,
+  });
+
+  // Phase 1: input, render settings, stimuli.
+  const { render, stimuli } = time('check', () => {
+    const issues = checkPackInput(input);
+    if (issues.length > 0) throw new PackError('invalid-input', issues.map((i) => i.message).join(' '), issues);
+    return checked(() => ({ render: resolveRender(input.profile, input.render), stimuli: packStimuli(input.definition, input.boundaries) }));
+  });
+  progress?.('check', 1);
+  const ids = stimuli.map((s) => s.id);
+
+  // Phase 2: outlines and the common frame.
+  const { contours, frame } = time('synthesize', () => {
+    const drawn = checked(() => synthesizeStimuli(stimuli, render.options.samples));
+    return { contours: drawn, frame: checked(() => frameStimuli(drawn, render, ids)) };
+  });
+  progress?.('synthesize', 1);
+
+  // Phase 3: SVGs; then every PNG handed to the back end before the RDMs, so they render meanwhile.
+  const svgFiles = time('svg', () => stimuli.map((s, i) => hashed(`stimuli/svg/${s.id}.svg`, encoder.encode(stimulusSvg(contours[i]!, frame, render)))));
+  progress?.('svg', 1);
+  let rendered = 0;
+  const pngAll = Promise.all(
+    stimuli.map((s, i) =>
+      backends
+        .renderPng({ id: s.id, svg: stimulusSvg(contours[i]!, frame, render, { units: 'pixels' }), sizePx: frame.canvasPx, channels: render.pngChannels })
+        .then((bytes) => {
+          rendered++;
+          progress?.('png', rendered / stimuli.length);
+          return bytes;
+        }),
+    ),
+  );
+
+  // Phase 4: model RDMs of the layout stimuli.
+  const layoutCount = stimuli.filter((s) => s.kind === 'layout').length;
+  const rdmFiles = time('rdm', () => {
+    const rdms = modelRdms(stimuli.slice(0, layoutCount), contours.slice(0, layoutCount), (f) => progress?.('rdm', f));
+    const layoutIds = ids.slice(0, layoutCount);
+    return RDM_FILES.map((r) => ({ ...r, path: `rdm/${r.name}.tsv`, text: rdmTsv(rdms[r.name], layoutIds) }));
+  });
+  const rdmPackFiles = rdmFiles.map((r) => hashed(r.path, encoder.encode(r.text)));
+
+  // Phase 5: the PNGs.
+  const pngWait = performance.now();
+  let pngBytes: Uint8Array[];
+  try {
+    pngBytes = await pngAll;
+  } catch (error) {
+    throw new PackError('render-failed', `A PNG could not be rendered: ${error instanceof Error ? error.message : String(error)}`, [], { cause: error });
+  }
+  timings.png = performance.now() - pngWait;
+  const pngFiles = stimuli.map((s, i) => hashed(`stimuli/png/${s.id}.png`, pngBytes[i]!, 'STORE'));
+  pngBytes = [];
+
+  // Phase 6: manifest, tables, README, checksums.
+  const built = time('tables', () => {
+    const classification = checked(() => classifyStimuli(stimuli, input.boundaries, input.definition.extent));
+    const manifestStimuli = stimuli.map((s, i): ManifestStimulus => {
+      const area = Math.abs(descriptorArea(s.descriptor));
+      const perimeter = descriptorPerimeter(s.descriptor);
+      const size = drawnSize(contours[i]!, frame, input.profile);
+      const ref = (f: PackFile) => ({ path: f.path, sha256: f.sha256, bytes: f.bytes });
+      return {
+        id: s.id,
+        kind: s.kind,
+        prototypeOf: s.prototypeOf,
+        files: { svg: ref(svgFiles[i]!), png: ref(pngFiles[i]!) },
+        position: { a: s.position.a, b: s.position.b },
+        polar: { rho: s.polar.rho, angleDeg: s.polar.angle * DEGREES_PER_RADIAN },
+        descriptor: s.descriptor,
+        contourOffset: [s.contourOffset[0], s.contourOffset[1]],
+        metrics: { area, perimeter, compactness: perimeter === 0 ? 0 : (4 * Math.PI * area) / (perimeter * perimeter), equalAreaDiameterDeg: size.equalAreaDiameterDeg, maxExtentDeg: size.maxExtentDeg },
+        boundaries: (classification[i]?.placements ?? []).map((p) => ({
+          boundaryKey: p.boundaryKey,
+          category: p.side === 'on' ? null : p.side,
+          onBoundary: p.isAmbiguous,
+          signedDistance: p.distance,
+          fraction: p.fraction,
+        })),
+      };
+    });
+    const boundaryKeys = input.boundaries.map((b) => b.key);
+    const boundaries = input.boundaries.map((b) => ({
+      key: b.key,
+      label: b.label ?? null,
+      angleDeg: b.angleDeg,
+      prototypeDistance: b.prototypeDistance ?? 0.75 * input.definition.extent,
+    }));
+    const notice = nonApprovedNotice(input.edition);
+    const readme = packReadme({
+      notice,
+      edition: input.edition,
+      productVersion: input.versions.product,
+      engineVersion: input.versions.engine,
+      profileName: input.profile.name,
+      viewingDistanceCm: input.profile.viewingDistanceCm,
+      render: render.options,
+      sizes: render.sizes,
+      contrast: render.contrast,
+      boundaries,
+      layoutStimuli: layoutCount,
+      prototypes: stimuli.length - layoutCount,
+      hasSequences: (input.sequences ?? []).length > 0,
+    });
+    const otherFiles = [
+      hashed('README.txt', encoder.encode(readme)),
+      hashed('manifest.schema.json', encoder.encode(JSON.stringify(MANIFEST_SCHEMA, null, 2) + '\n')),
+      hashed('stimuli.csv', encoder.encode(stimuliCsv(manifestStimuli, boundaryKeys))),
+      hashed('trial-list.csv', encoder.encode(trialListCsv(manifestStimuli, boundaryKeys))),
+      ...rdmPackFiles,
+      ...(input.sequences ?? []).map((f) => hashed(`sequences/${f.name}`, encoder.encode(f.text))),
+    ].sort(byPath);
+    const manifest: PackManifest = {
+      ...(notice ? { notice } : {}),
+      schemaVersion: PACK_LIMITS.schemaVersion,
+      approved: input.edition.state === 'approved',
+      product: { name: PRODUCT_NAME, version: input.versions.product },
+      engine: { version: input.versions.engine },
+      edition: { ...input.edition },
+      displayProfile: { ...input.profile, derived: { pixelsPerCm: render.sizes.pixelsPerCm, pixelsPerDegree: render.sizes.pixelsPerDegree } },
+      render: {
+        options: render.options,
+        sizes: render.sizes,
+        pxPerUnit: frame.pxPerUnit,
+        png: { channels: render.pngChannels, widthPx: frame.canvasPx, heightPx: frame.canvasPx },
+        contrast: { ...render.contrast, basis: CONTRAST_BASIS },
+        warnings: render.warnings,
+      },
+      space: { definition: input.definition, layoutStimuli: layoutCount, prototypes: stimuli.length - layoutCount },
+      boundaries,
+      rdms: rdmFiles.map(({ name, path, unit, description }) => ({ name, path, unit, description })),
+      files: otherFiles.map(({ path, sha256: hash, bytes }) => ({ path, sha256: hash, bytes })),
+      stimuli: manifestStimuli,
+    };
+    const manifestFile = hashed('manifest.json', encoder.encode(JSON.stringify(manifest, null, 2) + '\n'));
+    const listed = [manifestFile, ...otherFiles, ...svgFiles, ...pngFiles].sort(byPath);
+    const sums = hashed('SHA256SUMS', encoder.encode(sha256Sums(listed)));
+    return { manifest, files: [...listed, sums].sort(byPath) };
+  });
+  progress?.('tables', 1);
+
+  const date = new Date(Date.parse(input.edition.createdAt));
+  return {
+    manifest: built.manifest,
+    files: built.files,
+    timings,
+    writeZip: (sink) => zipPack(built.files, date, sink),
+  };
+}

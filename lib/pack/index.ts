@@ -1,0 +1,37 @@
+// lib/pack — stimulus packs: the manifest and its JSON Schema, CSV and TSV tables, model RDMs, README, SHA-256
+// checksums and a byte-reproducible zip (jszip). Pure: PNG rasterisation and hashing come in as back ends, so
+// Node-only code (sharp, worker threads, node:crypto) stays at the edge.
+
+export type {
+  BuiltPack,
+  EditionState,
+  ManifestPlacement,
+  ManifestRdm,
+  ManifestStimulus,
+  PackBackends,
+  PackEdition,
+  PackFile,
+  PackFileRef,
+  PackInput,
+  PackIssue,
+  PackManifest,
+  PackPngRequest,
+  PackSequenceFile,
+  PackStage,
+} from './types';
+export { PackError, type PackErrorCode } from './pack-error';
+export { PACK_LIMITS, PRODUCT_NAME } from './pack-limits';
+export { checkPackInput } from './check-pack-input';
+export { packStimuli, type PackStimulus } from './pack-stimuli';
+export { synthesizeStimuli } from './synthesize-stimuli';
+export { modelRdms, type ModelRdms } from './model-rdms';
+export { rdmTsv, RDM_DECIMALS } from './rdm-tsv';
+export { stimuliCsv, STIMULI_COLUMNS, boundaryColumns } from './stimuli-csv';
+export { trialListCsv, TRIAL_LIST_COLUMNS } from './trial-list-csv';
+export { categoryLabel } from './category-label';
+export { packReadme, type PackReadmeContext } from './pack-readme';
+export { nonApprovedNotice } from './non-approved-notice';
+export { sha256Sums } from './sha256-sums';
+export { MANIFEST_SCHEMA } from './manifest-schema';
+export { zipPack } from './zip-pack';
+export { buildPack } from './build-pack';

@@ -1,0 +1,32 @@
+// Node-only: rasterises through sharp (libvips with librsvg, prebuilt binaries shipped in its npm packages).
+// Not exported from lib/render/index.ts, so the browser bundle never reaches it.
+import sharp from 'sharp';
+import { RenderError } from './render-error';
+import type { PngChannels } from './types';
+
+/** zlib level of the PNG encoder: libvips's default, a fixed choice so the same SVG gives the same bytes. */
+export const PNG_COMPRESSION_LEVEL = 6;
+
+/** One rasterisation: a pixel-unit SVG (`stimulusSvg(…, { units: 'pixels' })`) and the PNG it must become. */
+export interface PngRequest {
+  readonly svg: string;
+  /** Side of the square image, px; checked against what the renderer produced. */
+  readonly sizePx: number;
+  readonly channels: PngChannels;
+}
+
+/**
+ * Rasterises a stimulus SVG to PNG bytes with sharp (librsvg draws, libvips encodes at zlib level 6, no
+ * metadata): 8-bit grey, grey + alpha, RGB or RGBA as asked. Anti-aliasing follows the SVG's `shape-rendering`.
+ * Deterministic for a given sharp build. Raises `RenderError` if the image is not `sizePx` square.
+ */
+export async function renderPng(request: PngRequest): Promise<Uint8Array> {
+  let image = sharp(Buffer.from(request.svg, 'utf8'));
+  if (request.channels === 'grey' || request.channels === 'rgb') image = image.removeAlpha();
+  if (request.channels === 'grey' || request.channels === 'grey-alpha') image = image.toColourspace('b-w');
+  const { data, info } = await image.png({ compressionLevel: PNG_COMPRESSION_LEVEL, adaptiveFiltering: false, palette: false }).toBuffer({ resolveWithObject: true });
+  if (info.width !== request.sizePx || info.height !== request.sizePx) {
+    throw new RenderError('invalid-argument', `The renderer drew ${info.width} × ${info.height} px instead of ${request.sizePx} × ${request.sizePx} px.`);
+  }
+  return new Uint8Array(data.buffer, data.byteOffset, data.byteLength);
+}
