@@ -12,7 +12,7 @@ export function ShapePreview({
   testId,
   children,
 }: {
-  paths: { d: string; fill?: string; stroke?: string; dashed?: boolean; testId?: string }[];
+  paths: { d: string; fill?: string; stroke?: string; strokeWidth?: number; dashed?: boolean; testId?: string }[];
   extent?: number;
   size?: number | string;
   label: string;
@@ -40,8 +40,8 @@ export function ShapePreview({
           d={p.d}
           fill={p.fill ?? 'none'}
           stroke={p.stroke ?? 'none'}
-          strokeWidth={p.stroke ? 0.012 : 0}
-          strokeDasharray={p.dashed ? '0.04 0.03' : undefined}
+          strokeWidth={p.stroke ? (p.strokeWidth ?? 0.012) : 0}
+          strokeDasharray={p.dashed ? `${(p.strokeWidth ?? 0.012) * 3.3} ${(p.strokeWidth ?? 0.012) * 2.5}` : undefined}
           strokeLinejoin="round"
           data-testid={p.testId}
         />

@@ -1,9 +1,16 @@
 'use client';
 
-import { useEffect, useRef } from 'react';
+import { useEffect, useRef, type ReactNode } from 'react';
 import type { Contour } from '@/lib/shape/types';
 import { rasterizeOutline } from '@/lib/render/rasterize-outline';
 import { parseHexColour } from '@/lib/render/parse-hex-colour';
+
+/** Where the space sits on the view: `toPx` maps (a, b) to view px; the circle of radius ρmax has `radiusPx`. */
+export interface SpaceGeometry {
+  size: number;
+  toPx: (a: number, b: number) => [number, number];
+  radiusPx: number;
+}
 
 export interface CanvasStimulus {
   id: string;
@@ -29,6 +36,7 @@ export function SpaceCanvas({
   onSelect,
   size = 640,
   onDrawn,
+  overlay,
 }: {
   stimuli: readonly CanvasStimulus[];
   extent: number;
@@ -37,6 +45,8 @@ export function SpaceCanvas({
   onSelect: (id: string) => void;
   size?: number;
   onDrawn?: (ms: number) => void;
+  /** Drawn over the space in an SVG with the canvas's own coordinates (CSS px of `size`). */
+  overlay?: (geometry: SpaceGeometry) => ReactNode;
 }) {
   const back = useRef<HTMLCanvasElement>(null);
   const ref = useRef<HTMLCanvasElement>(null);
@@ -152,6 +162,11 @@ export function SpaceCanvas({
         data-testid="space-canvas"
         data-stimuli={stimuli.length}
       />
+      {overlay ? (
+        <svg viewBox={`0 0 ${size} ${size}`} className="pointer-events-none absolute inset-0 h-full w-full" aria-hidden={false}>
+          {overlay({ size, toPx: (a, b) => [size / 2 + a * unitOf(size, extent), size / 2 - b * unitOf(size, extent)], radiusPx: extent * unitOf(size, extent) })}
+        </svg>
+      ) : null}
     </div>
   );
 }

@@ -10,6 +10,12 @@ import { FAMILY_LABELS, type DescriptorInput } from '@/lib/schemas/descriptor';
 import type { ShapeSpace, SpaceSettings } from '@/lib/schemas/space';
 import type { ShapeDescriptor } from '@/lib/shape/types';
 import type { SpaceDefinition } from '@/lib/space/types';
+import Link from 'next/link';
+import { SIDE_COLOURS, classify } from '@/lib/boundary-editor';
+import type { BoundaryValue } from '@/lib/schemas/boundary';
+import type { Edition } from '@/lib/schemas/edition';
+import { BoundaryOverlay } from './boundary-overlay';
+import { BoundaryPanel } from './boundary-panel';
 import { ConfoundAuditPanel } from './confound-audit-panel';
 import { HarmonicTable } from './harmonic-table';
 import { NumberSlider } from './number-slider';
@@ -39,8 +45,28 @@ const selectClass = 'mt-1 block h-8 rounded-[3px] border-[0.5px] border-rule-str
 const numberClass = 'tabular mt-1 block h-8 w-20 rounded-[3px] border-[0.5px] border-rule-strong bg-paper-raised px-2 text-sm font-normal';
 
 /** The shape-space editor: seed, two axes, ρmax, layout and normalisation, with the whole space redrawn live. */
-export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; seeds: SeedOption[]; initial: ShapeSpace | null; canEdit: boolean }) {
+export function SpaceEditor({
+  lab,
+  seeds,
+  initial,
+  canEdit,
+  canEditBoundaries = false,
+  canFreeze = false,
+}: {
+  lab: string;
+  seeds: SeedOption[];
+  initial: ShapeSpace | null;
+  canEdit: boolean;
+  canEditBoundaries?: boolean;
+  canFreeze?: boolean;
+}) {
   const router = useRouter();
+  const [boundaries, setBoundaries] = useState<BoundaryValue[]>(initial?.boundaries ?? []);
+  const [boundariesVersion, setBoundariesVersion] = useState(initial?.boundariesVersion ?? 1);
+  const [savedBoundaries, setSavedBoundaries] = useState(() => JSON.stringify(initial?.boundaries ?? []));
+  const boundariesDirty = JSON.stringify(boundaries) !== savedBoundaries;
+  const [activeBoundary, setActiveBoundary] = useState<string | null>(initial?.boundaries[0]?.key ?? null);
+  const [snap, setSnap] = useState(false);
   const firstSeed = initial ? seeds.find((s) => s.id === initial.seedShape.id) ?? { id: initial.seedShape.id, name: initial.seedShape.name, version: 1, descriptor: initial.seedShape.descriptor as ShapeDescriptor } : seeds[0];
   const [name, setName] = useState(initial?.name ?? '');
   const [seedId, setSeedId] = useState(firstSeed?.id ?? '');
@@ -87,9 +113,16 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
     performance.measure('space-synthesis', 'space-synth-start', 'space-synth-end');
     return r;
   }, [definition]);
+  const positioned = useMemo(() => (live?.items ?? []).map((i) => i.stimulus), [live]);
+  const classification = useMemo(() => classify(positioned, boundaries, settings.extent), [positioned, boundaries, settings.extent]);
+  const activeIndex = boundaries.findIndex((b) => b.key === activeBoundary);
   const canvasStimuli: CanvasStimulus[] = useMemo(
-    () => (live?.items ?? []).map(({ stimulus, contour }) => ({ id: stimulus.id, a: stimulus.position.a, b: stimulus.position.b, contour })),
-    [live],
+    () =>
+      (live?.items ?? []).map(({ stimulus, contour }, i) => {
+        const side = activeIndex >= 0 ? classification?.[i]?.placements[activeIndex]?.side : undefined;
+        return { id: stimulus.id, a: stimulus.position.a, b: stimulus.position.b, contour, ...(side ? { color: SIDE_COLOURS[side] } : {}) };
+      }),
+    [live, classification, activeIndex],
   );
   const onDrawn = useCallback(
     (drawMs: number) => {
@@ -105,7 +138,15 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
     [live, canvasStimuli.length],
   );
   const invalidCount = live?.items.filter((i) => !i.contour).length ?? 0;
-  const selectedStimulus = live?.items.find((i) => i.stimulus.id === selected) ?? null;
+  const selectedIndex = live?.items.findIndex((i) => i.stimulus.id === selected) ?? -1;
+  const selectedStimulus = selectedIndex >= 0 ? live!.items[selectedIndex]! : null;
+  const selectedPlacements = selectedIndex >= 0 ? classification?.[selectedIndex]?.placements ?? null : null;
+
+  const freeze = useMutation({
+    mutationFn: () => apiFetch<Edition>(`/api/v1/labs/${lab}/spaces/${initial!.id}/editions`, { method: 'POST', body: { changeNote, spaceVersion: version, boundariesVersion } }),
+    onSuccess: (e) => router.push(`/labs/${lab}/spaces/${initial!.id}/editions/${e.number}`),
+  });
+  const [changeNote, setChangeNote] = useState('');
 
   const setAxis = (i: 0 | 1, axis: Axis) => setSettings((s) => ({ ...s, axes: (i === 0 ? [axis, s.axes[1]] : [s.axes[0], axis]) as SpaceSettings['axes'] }));
 
@@ -208,7 +249,28 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
 
       <div className="grid gap-8 xl:grid-cols-[1fr_22rem]">
         <div className="space-y-3">
-          <SpaceCanvas stimuli={canvasStimuli} extent={settings.extent} circular={circular} selectedId={selected} onSelect={setSelected} onDrawn={onDrawn} />
+          <SpaceCanvas
+            stimuli={canvasStimuli}
+            extent={settings.extent}
+            circular={circular}
+            selectedId={selected}
+            onSelect={setSelected}
+            onDrawn={onDrawn}
+            overlay={
+              boundaries.length
+                ? (g) => (
+                    <BoundaryOverlay
+                      geometry={g}
+                      boundaries={boundaries}
+                      activeKey={activeBoundary}
+                      editable={canEditBoundaries}
+                      snapSpokes={snap && settings.layout.kind === 'rings' ? settings.layout.spokes : null}
+                      onAngle={(key, angleDeg) => setBoundaries((bs) => bs.map((b) => (b.key === key ? { ...b, angleDeg } : b)))}
+                    />
+                  )
+                : undefined
+            }
+          />
           <p className="tabular text-xs text-graphite-muted">
             <span ref={frameRef} data-testid="space-frame" />
             {invalidCount ? <span className="ml-2 text-danger" data-testid="space-invalid-count">{invalidCount} stimuli cannot be drawn at this ρmax</span> : null}
@@ -224,7 +286,62 @@ export function SpaceEditor({ lab, seeds, initial, canEdit }: { lab: string; see
               ))}
             </select>
           </label>
-          {selectedStimulus ? <SpaceInspector stimulus={selectedStimulus.stimulus} contour={selectedStimulus.contour} /> : null}
+          {selectedStimulus ? (
+            <SpaceInspector stimulus={selectedStimulus.stimulus} contour={selectedStimulus.contour} placements={selectedPlacements} boundaries={boundaries} extent={settings.extent} />
+          ) : null}
+          <BoundaryPanel
+            lab={lab}
+            spaceId={initial?.id ?? null}
+            boundaries={boundaries}
+            version={boundariesVersion}
+            extent={settings.extent}
+            stimuli={positioned}
+            activeKey={activeBoundary}
+            canEdit={canEditBoundaries}
+            snap={snap}
+            canSnap={settings.layout.kind === 'rings'}
+            onChange={setBoundaries}
+            onActivate={setActiveBoundary}
+            onSnap={setSnap}
+            dirty={boundariesDirty}
+            onSaved={(saved) => {
+              setBoundaries(saved.boundaries);
+              setBoundariesVersion(saved.boundariesVersion);
+              setSavedBoundaries(JSON.stringify(saved.boundaries));
+            }}
+          />
+          {initial ? (
+            <section className="space-y-2 border-t-[0.5px] border-rule pt-4 text-sm" aria-labelledby="freeze-heading" data-testid="freeze-panel">
+              <div className="flex flex-wrap items-center gap-3">
+                <h2 id="freeze-heading" className="text-base font-semibold">
+                  Editions
+                </h2>
+                <Link href={`/labs/${lab}/spaces/${initial.id}/editions`} className="text-accent underline underline-offset-2" data-testid="editions-link">
+                  {initial.editionCount === 1 ? '1 edition' : `${initial.editionCount} editions`}
+                </Link>
+              </div>
+              {canFreeze ? (
+                <>
+                  <p className="text-graphite-soft">
+                    Freezing snapshots the seed, axes, layout, normalisation, boundaries and every stimulus into a numbered edition that never changes. A reviewer approves it before studies use it.
+                  </p>
+                  <label className="block font-medium">
+                    Change note
+                    <textarea value={changeNote} onChange={(e) => setChangeNote(e.target.value)} rows={2} maxLength={2000} className="mt-1 block w-full max-w-xl rounded-[3px] border-[0.5px] border-rule-strong bg-paper-raised px-2 py-1 text-sm font-normal" data-testid="change-note" />
+                  </label>
+                  {dirty || boundariesDirty ? <p className="text-xs text-caution">Save your changes first: an edition freezes what is saved.</p> : null}
+                  {freeze.error ? (
+                    <Notice tone="error" testId="freeze-error">
+                      {freeze.error.message}
+                    </Notice>
+                  ) : null}
+                  <Button onClick={() => freeze.mutate()} disabled={freeze.isPending || dirty || boundariesDirty || !!live?.error} data-testid="freeze-edition">
+                    {freeze.isPending ? 'Freezing…' : 'Freeze as edition'}
+                  </Button>
+                </>
+              ) : null}
+            </section>
+          ) : null}
         </div>
 
         <fieldset disabled={!canEdit} className="space-y-5 text-sm" data-testid="space-controls">

@@ -4,12 +4,27 @@ import { thumbnailPath } from '@/lib/shape/measure-shape';
 import type { Contour } from '@/lib/shape/types';
 import { stimulusMetrics } from '@/lib/space/stimulus-metrics';
 import type { Stimulus } from '@/lib/space/types';
+import { SIDE_COLOURS, SIDE_NAMES } from '@/lib/boundary-editor';
+import type { BoundaryPlacement } from '@/lib/boundary/types';
+import type { BoundaryValue } from '@/lib/schemas/boundary';
 import { ShapePreview } from './shape-preview';
 
 const DEG = 180 / Math.PI;
 
 /** One stimulus enlarged, with its id, position, descriptor and metrics. */
-export function SpaceInspector({ stimulus, contour }: { stimulus: Stimulus; contour: Contour | null }) {
+export function SpaceInspector({
+  stimulus,
+  contour,
+  placements = null,
+  boundaries = [],
+  extent,
+}: {
+  stimulus: Stimulus;
+  contour: Contour | null;
+  placements?: readonly BoundaryPlacement[] | null;
+  boundaries?: readonly BoundaryValue[];
+  extent?: number;
+}) {
   let metrics: ReturnType<typeof stimulusMetrics> | null = null;
   try {
     metrics = stimulusMetrics(stimulus);
@@ -33,6 +48,17 @@ export function SpaceInspector({ stimulus, contour }: { stimulus: Stimulus; cont
           <p className="tabular text-xs">
             area {metrics.area.toFixed(4)} · perimeter {metrics.perimeter.toFixed(4)} · compactness {metrics.compactness.toFixed(4)}
           </p>
+        ) : null}
+        {placements && placements.length ? (
+          <ul className="tabular space-y-0.5 text-xs" data-testid="inspector-placements">
+            {placements.map((p, i) => (
+              <li key={p.boundaryKey}>
+                <span style={{ color: SIDE_COLOURS[p.side] }}>■</span> {boundaries[i]?.label || p.boundaryKey}: {SIDE_NAMES[p.side]}, signed distance {p.distance.toFixed(3)}
+                {extent ? ` (${p.fraction >= 0 ? '+' : ''}${p.fraction.toFixed(3)} ρmax)` : ''}
+                {p.isAmbiguous ? <strong className="ml-1 text-caution">ambiguous: on the boundary</strong> : null}
+              </li>
+            ))}
+          </ul>
         ) : null}
         <table className="tabular text-xs">
           <tbody>

@@ -8,7 +8,10 @@ import { findUserByEmail, insertUser } from './repositories/users';
 import { insertSeedShape, listSeedShapes } from './repositories/seed-shapes';
 import { validateDescriptor, type ShapeDescriptor } from '@/lib/shape';
 import { anisotropyIndex, checkSpace } from '@/lib/space';
-import { insertShapeSpace, listShapeSpaces } from './repositories/shape-spaces';
+import { insertShapeSpace, listShapeSpaces, updateSpaceBoundaries } from './repositories/shape-spaces';
+import { insertEdition, listEditions, transitionEdition } from './repositories/editions';
+import { buildSnapshot, contentHash } from '@/lib/edition';
+import { ENGINE_VERSION } from '@/lib/shape/engine-version';
 
 /**
  * The demo lab, an invented scenario: the Halden Form Perception Group is preparing a study on how people
@@ -62,6 +65,9 @@ export const DEMO_SPACE = {
   },
 } as const;
 
+/** The demo space's one boundary, frozen with it into an Approved edition 1. */
+export const DEMO_BOUNDARY = { key: 'smooth-vs-knobbly', label: 'Smooth vs knobbly', angleDeg: 45, prototypeDistance: null } as const;
+
 /** bcrypt cost for demo accounts (the same as real ones). */
 const DEMO_BCRYPT_COST = 12;
 
@@ -112,6 +118,35 @@ export async function seedDemo(db: Db): Promise<string> {
         stimulusCount: report.count,
       });
       created.push(`space ${DEMO_SPACE.name}`);
+    }
+
+    // One boundary and an Approved edition 1: frozen by the designer, approved by the reviewer.
+    const space = (await listShapeSpaces(trx, lab.id, { limit: 100 })).find((sp) => sp.name === DEMO_SPACE.name)!;
+    if ((await listEditions(trx, lab.id, space.id, { limit: 1 })).length === 0) {
+      const reviewer = await findUserByEmail(trx, DEMO_USERS.find((u) => u.role === 'reviewer')!.email);
+      if ((space.boundaries as unknown[]).length === 0) await updateSpaceBoundaries(trx, lab.id, space.id, space.boundaries_version, designer!.id, [DEMO_BOUNDARY]);
+      const seed = DEMO_SEED_SHAPES.find((x) => x.name === DEMO_SPACE.seed)!.descriptor;
+      const snapshot = buildSnapshot({
+        engineVersion: ENGINE_VERSION,
+        space: { id: space.id, name: space.name },
+        seed: { id: space.seed_shape_id, name: DEMO_SPACE.seed },
+        definition: { seed, ...DEMO_SPACE.settings, equalization: null },
+        boundaries: [{ key: DEMO_BOUNDARY.key, label: DEMO_BOUNDARY.label, angleDeg: DEMO_BOUNDARY.angleDeg }],
+      });
+      const { id } = await insertEdition(trx, {
+        labId: lab.id,
+        spaceId: space.id,
+        number: 1,
+        snapshot,
+        contentHash: contentHash(snapshot),
+        engineVersion: ENGINE_VERSION,
+        stimulusCount: snapshot.stimuli.length,
+        changeNote: 'First edition for the pilot norming study.',
+        authorId: designer!.id,
+      });
+      await transitionEdition(trx, id, 'draft', 'in_review', { submitted_by: designer!.id, submitted_at: new Date() });
+      await transitionEdition(trx, id, 'in_review', 'approved', { decided_by: reviewer!.id, decided_at: new Date(), decision_note: 'Spacing and the boundary look even; approved for norming.' });
+      created.push(`approved edition 1 of ${DEMO_SPACE.name}`);
     }
   });
   return created.length ? `demo lab "${DEMO_LAB.name}": created ${created.join(', ')}` : `demo lab "${DEMO_LAB.name}" already present`;

@@ -32,7 +32,15 @@ export default async function SpacePage({ params }: { params: Promise<{ lab: str
         / {space.name}
       </p>
       {editable ? <h1 className="sr-only">Shape space {space.name}</h1> : null}
-      <SpaceEditor key={space.id} lab={lab} seeds={seeds} initial={space} canEdit={editable} />
+      <SpaceEditor
+        key={space.id}
+        lab={lab}
+        seeds={seeds}
+        initial={space}
+        canEdit={editable}
+        canEditBoundaries={can(actor.role, 'boundary:write')}
+        canFreeze={can(actor.role, 'edition:freeze')}
+      />
     </>
   );
 }

@@ -1,0 +1,55 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { EditionReview } from '@/components/edition-review';
+import { AppError } from '@/lib/errors';
+import { getDb } from '@/lib/server/db';
+import { requireLabPageActor } from '@/lib/server/page-context';
+import { can } from '@/lib/server/policy';
+import { getEdition, getEditionSnapshot, listComments } from '@/lib/server/services/editions';
+
+export const metadata: Metadata = { title: 'Edition review' };
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export default async function EditionPage({ params }: { params: Promise<{ lab: string; spaceId: string; number: string }> }) {
+  const { lab, spaceId, number: raw } = await params;
+  const number = Number(raw);
+  if (!UUID.test(spaceId) || !Number.isInteger(number) || number < 1) notFound();
+  const { actor } = await requireLabPageActor(lab, `/labs/${lab}/spaces/${spaceId}/editions/${number}`);
+  const db = getDb();
+  const [edition, snapshot, comments] = await Promise.all([
+    getEdition(db, actor, spaceId, number),
+    getEditionSnapshot(db, actor, spaceId, number),
+    listComments(db, actor, spaceId, number),
+  ]).catch((e: unknown) => {
+    if (e instanceof AppError && e.kind === 'not_found') notFound();
+    throw e;
+  });
+  const isAuthor = edition.author?.id === actor.userId;
+  return (
+    <>
+      <p className="mb-4 text-sm text-graphite-muted">
+        <Link href={`/labs/${lab}/spaces`} className="text-accent underline underline-offset-2">
+          Shape spaces
+        </Link>{' '}
+        /{' '}
+        <Link href={`/labs/${lab}/spaces/${spaceId}`} className="text-accent underline underline-offset-2">
+          {edition.spaceName}
+        </Link>{' '}
+        /{' '}
+        <Link href={`/labs/${lab}/spaces/${spaceId}/editions`} className="text-accent underline underline-offset-2">
+          Editions
+        </Link>{' '}
+        / {number}
+      </p>
+      <EditionReview
+        lab={lab}
+        edition={edition}
+        snapshot={snapshot}
+        comments={comments}
+        can={{ submit: can(actor.role, 'edition:submit'), decide: can(actor.role, 'edition:decide') && !isAuthor, comment: can(actor.role, 'edition:comment'), isAuthor }}
+      />
+    </>
+  );
+}
