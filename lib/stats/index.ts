@@ -37,3 +37,9 @@ export { chiSquareSurvival } from './chi-square-survival';
 export { goldenSectionMaximum } from './golden-section-maximum';
 export { fitCommonSlope, type CommonSlopeFit } from './fit-common-slope';
 export { compareSlopes, type CompareSlopesOptions, type SlopeComparison } from './compare-slopes';
+export { combineChiSquareTests } from './combine-chi-square-tests';
+
+// Bias and the isotropy verdict
+export { testNoBias, type NoBiasOptions } from './test-no-bias';
+export { slopeRatioInterval, type SlopeRatio } from './slope-ratio-interval';
+export { describeIsotropy, type IsotropyEvidence, type IsotropyVerdict } from './describe-isotropy';
