@@ -415,23 +415,35 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
     return best;
   }
 
+  // The best climb of the current `fit` call and the iterations spent on it.
+  let best: FitterResult | undefined;
+  let spent = 0;
+
+  /** Climbs from one more start (only while its first step could beat the best so far) and keeps the better. */
+  function consider(from: FitterStart | undefined): void {
+    const result = climb(from, best === undefined ? Number.NEGATIVE_INFINITY : best.logLikelihood);
+    spent += result === undefined ? 1 : result.iterations;
+    if (result !== undefined && (best === undefined || result.logLikelihood > best.logLikelihood)) best = result;
+  }
+
+  /** The best climb so far (read through a call, as `consider` updates it). */
+  function bestSoFar(): FitterResult {
+    return best as FitterResult;
+  }
+
   function fit(k: ArrayLike<number>, start?: FitterStart | readonly FitterStart[]): FitterResult {
     for (let i = 0; i < m; i++) counts[i] = k[i] as number;
-    const starts: readonly (FitterStart | undefined)[] = start === undefined ? coldStarts() : Array.isArray(start) ? start : [start as FitterStart];
-    let best: FitterResult | undefined;
-    let iterations = 0;
-    // Later starts are climbed only while their first step could beat the best so far.
-    const consider = (from: FitterStart | undefined) => {
-      const result = climb(from, best?.logLikelihood);
-      iterations += result?.iterations ?? 1;
-      if (result !== undefined && (best === undefined || result.logLikelihood > best.logLikelihood)) best = result;
-    };
-    for (const from of starts) consider(from);
+    best = undefined;
+    spent = 0;
+    if (start === undefined) for (const from of coldStarts()) consider(from);
+    else if (Array.isArray(start)) for (const from of start as readonly FitterStart[]) consider(from);
+    else consider(start as FitterStart);
     if (lapseFree && !thresholdFixed) {
-      const steep = steepStart((best as FitterResult).logLikelihood);
+      const steep = steepStart(bestSoFar().logLikelihood);
       if (steep !== undefined) consider(steep);
     }
-    return { ...(best as FitterResult), iterations };
+    const result = bestSoFar();
+    return spent === result.iterations ? result : { ...result, iterations: spent };
   }
 
   /** Starts of a fit without a previous one: neutral with λ = 0, and with λ free also neutral with λ = max. */
