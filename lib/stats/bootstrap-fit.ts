@@ -1,21 +1,22 @@
-import { drawBinomial } from './draw-binomial';
-import { evaluatePsychometric } from './evaluate-psychometric';
-import { fitPsychometric } from './fit-psychometric';
 import { percentile } from './percentile';
-import { seededRandom } from './seeded-random';
-import { StatsError } from './stats-error';
+import { runParametricBootstrap, type BootstrapOptions } from './run-parametric-bootstrap';
+import { linkFunction } from './link-function';
 import type { FitOptions, PsychometricData, PsychometricFit } from './types';
 
-/** Options of `bootstrapFit`: number of resamples (integer ≥ 1; 1,000 or more for 95 % intervals) and the seed. */
-export interface BootstrapOptions {
-  readonly resamples: number;
-  readonly seed: number;
-}
+export type { BootstrapOptions } from './run-parametric-bootstrap';
 
 /** A percentile interval [lower, upper] in the units of its parameter. */
 export type Interval = readonly [lower: number, upper: number];
 
-/** Result of `bootstrapFit`: the fit to the data and 95 % percentile intervals of its parameters. */
+/** The refitted parameters of every resample, in resample order (threshold and spread in units of x). */
+export interface BootstrapSamples {
+  readonly threshold: readonly number[];
+  readonly spread: readonly number[];
+  readonly lapse: readonly number[];
+  readonly slopeAtThreshold: readonly number[];
+}
+
+/** Result of `bootstrapFit`: the fit to the data, 95 % percentile intervals and the resampled parameters. */
 export interface BootstrapResult {
   readonly fit: PsychometricFit;
   readonly resamples: number;
@@ -27,6 +28,7 @@ export interface BootstrapResult {
   };
   /** Resamples whose spread stopped on a bound (separable or flat resamples): a widened interval's cause. */
   readonly spreadAtBoundCount: number;
+  readonly samples: BootstrapSamples;
 }
 
 /** Two-sided 95 % percentile interval: the 2.5 % and 97.5 % quantiles. */
@@ -36,33 +38,27 @@ const UPPER_Q = 0.975;
 /**
  * Parametric bootstrap of a psychometric fit (Wichmann & Hill 2001, Perception & Psychophysics 63:1314): fit the
  * data, draw `resamples` data sets of binomial counts from the fitted ψ at the observed levels and trial counts
- * (seeded, `seededRandom`), refit each with the same options, and report percentile 95 % intervals (Efron &
- * Tibshirani 1993, §13.3).
+ * (seeded, `runParametricBootstrap`), refit each with the same options (warm-started from the data's fit), and
+ * report percentile 95 % intervals (Efron & Tibshirani 1993, §13.3). Throws `StatsError`.
  */
 export function bootstrapFit(data: PsychometricData, options: FitOptions, bootstrap: BootstrapOptions): BootstrapResult {
-  if (!Number.isInteger(bootstrap.resamples) || bootstrap.resamples < 1) {
-    throw new StatsError('invalid-option', `resamples must be a positive integer; got ${bootstrap.resamples}.`);
-  }
-  const fit = fitPsychometric(data, options);
-  const random = seededRandom(bootstrap.seed);
-  // Fitted ψ at each level, the generating probabilities.
-  const psi = data.x.map((x) => evaluatePsychometric(fit.link, fit, x));
-
-  const thresholds: number[] = [];
-  const spreads: number[] = [];
-  const lapses: number[] = [];
-  const slopes: number[] = [];
+  const count = Math.max(0, Math.trunc(bootstrap.resamples));
+  const thresholds = new Float64Array(count);
+  const spreads = new Float64Array(count);
+  const lapses = new Float64Array(count);
+  const slopes = new Float64Array(count);
+  const densityAtZero = linkFunction(options.link).densityAtZero;
+  let r = 0;
   let spreadAtBoundCount = 0;
-  for (let r = 0; r < bootstrap.resamples; r++) {
-    const k = data.n.map((n, i) => drawBinomial(n, psi[i] as number, random));
-    const refit = fitPsychometric({ x: data.x, n: data.n, k }, options);
-    thresholds.push(refit.threshold);
-    spreads.push(refit.spread);
-    lapses.push(refit.lapse);
-    slopes.push(refit.slopeAtThreshold);
-    if (refit.bounds.spreadAtBound !== null) spreadAtBoundCount++;
-  }
-  const interval = (values: readonly number[]): Interval => [percentile(values, LOWER_Q), percentile(values, UPPER_Q)];
+  const fit = runParametricBootstrap(data, options, bootstrap, (refit) => {
+    thresholds[r] = refit.threshold;
+    spreads[r] = refit.spread;
+    lapses[r] = refit.lapse;
+    slopes[r] = ((1 - 2 * refit.lapse) * densityAtZero) / refit.spread;
+    if (refit.spreadAtBound !== null) spreadAtBoundCount++;
+    r++;
+  });
+  const interval = (values: Float64Array): Interval => [percentile(values, LOWER_Q), percentile(values, UPPER_Q)];
   return {
     fit,
     resamples: bootstrap.resamples,
@@ -73,5 +69,11 @@ export function bootstrapFit(data: PsychometricData, options: FitOptions, bootst
       slopeAtThreshold: interval(slopes),
     },
     spreadAtBoundCount,
+    samples: {
+      threshold: Array.from(thresholds),
+      spread: Array.from(spreads),
+      lapse: Array.from(lapses),
+      slopeAtThreshold: Array.from(slopes),
+    },
   };
 }

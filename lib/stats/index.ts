@@ -12,14 +12,23 @@ export { binomialLogLikelihood, type PsychometricParameters } from './binomial-l
 export { saturatedLogLikelihood } from './saturated-log-likelihood';
 export { fitAtLapse, type LapseConditionalFit } from './fit-at-lapse';
 export { profileLapse, type LapseProfileFit } from './profile-lapse';
-export { fitPsychometric } from './fit-psychometric';
+export {
+  createPsychometricFitter,
+  type FitterOptions,
+  type FitterResult,
+  type FitterStart,
+  type PsychometricFitter,
+} from './create-psychometric-fitter';
+export { fitPsychometric, completeFit, checkLapseOption } from './fit-psychometric';
 export { evaluatePsychometric } from './evaluate-psychometric';
 
 // Bootstrap
 export { seededRandom, MAX_SEED } from './seeded-random';
 export { drawBinomial } from './draw-binomial';
 export { percentile } from './percentile';
-export { bootstrapFit, type BootstrapOptions, type BootstrapResult, type Interval } from './bootstrap-fit';
+export { runParametricBootstrap, type BootstrapOptions } from './run-parametric-bootstrap';
+export { bootstrapFit, type BootstrapResult, type BootstrapSamples, type Interval } from './bootstrap-fit';
+export { goodnessOfFit, type GoodnessOfFit } from './goodness-of-fit';
 
 // Slope comparison
 export { logGamma } from './log-gamma';
@@ -28,3 +37,9 @@ export { chiSquareSurvival } from './chi-square-survival';
 export { goldenSectionMaximum } from './golden-section-maximum';
 export { fitCommonSlope, type CommonSlopeFit } from './fit-common-slope';
 export { compareSlopes, type CompareSlopesOptions, type SlopeComparison } from './compare-slopes';
+export { combineChiSquareTests } from './combine-chi-square-tests';
+
+// Bias and the isotropy verdict
+export { testNoBias, type NoBiasOptions } from './test-no-bias';
+export { slopeRatioInterval, type SlopeRatio } from './slope-ratio-interval';
+export { describeIsotropy, type IsotropyEvidence, type IsotropyVerdict } from './describe-isotropy';

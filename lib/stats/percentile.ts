@@ -1,10 +1,10 @@
 /**
  * The q-quantile (q in [0, 1]) of a sample by linear interpolation between order statistics (Hyndman & Fan 1996,
- * definition 7, the default of R and NumPy). Copies before sorting; NaN for an empty sample.
+ * definition 7, the default of R and NumPy). Sorts a copy (numerically); NaN for an empty sample.
  */
-export function percentile(values: readonly number[], q: number): number {
+export function percentile(values: ArrayLike<number>, q: number): number {
   if (values.length === 0) return Number.NaN;
-  const sorted = [...values].sort((a, b) => a - b);
+  const sorted = Float64Array.from(values).sort();
   const h = (sorted.length - 1) * q;
   const lo = Math.floor(h);
   const hi = Math.min(lo + 1, sorted.length - 1);
