@@ -144,6 +144,24 @@ export interface EditionCommentsTable {
   resolved_at: Date | null;
 }
 
+/** A lab's screen: resolution, pixel pitch (physical width or px/cm) and viewing distance. */
+export interface DisplayProfilesTable {
+  id: Generated<string>;
+  lab_id: string;
+  name: string;
+  width_px: number;
+  height_px: number;
+  width_cm: number | null;
+  pixels_per_cm: number | null;
+  viewing_distance_cm: number;
+  notes: Generated<string>;
+  version: Generated<number>;
+  created_by: string | null;
+  updated_by: string | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
@@ -157,6 +175,7 @@ export interface Database {
   shape_spaces: ShapeSpacesTable;
   editions: EditionsTable;
   edition_comments: EditionCommentsTable;
+  display_profiles: DisplayProfilesTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -169,3 +188,4 @@ export type SeedShapeRow = Selectable<SeedShapesTable>;
 export type ShapeSpaceRow = Selectable<ShapeSpacesTable>;
 export type EditionRow = Selectable<EditionsTable>;
 export type EditionCommentRow = Selectable<EditionCommentsTable>;
+export type DisplayProfileRow = Selectable<DisplayProfilesTable>;

@@ -10,6 +10,7 @@ import { validateDescriptor, type ShapeDescriptor } from '@/lib/shape';
 import { anisotropyIndex, checkSpace } from '@/lib/space';
 import { insertShapeSpace, listShapeSpaces, updateSpaceBoundaries } from './repositories/shape-spaces';
 import { insertEdition, listEditions, transitionEdition } from './repositories/editions';
+import { insertDisplayProfile, listDisplayProfiles } from './repositories/display-profiles';
 import { buildSnapshot, contentHash } from '@/lib/edition';
 import { ENGINE_VERSION } from '@/lib/shape/engine-version';
 
@@ -67,6 +68,9 @@ export const DEMO_SPACE = {
 
 /** The demo space's one boundary, frozen with it into an Approved edition 1. */
 export const DEMO_BOUNDARY = { key: 'smooth-vs-knobbly', label: 'Smooth vs knobbly', angleDeg: 45, prototypeDistance: null } as const;
+
+/** The demo lab's testing-room screen. */
+export const DEMO_DISPLAY_PROFILE = { name: 'Testing room B monitor', widthPx: 1920, heightPx: 1080, widthCm: 53.1, pixelsPerCm: null, viewingDistanceCm: 57, notes: 'Chin rest at 57 cm, so 1 cm on the screen is about 1°.' };
 
 /** bcrypt cost for demo accounts (the same as real ones). */
 const DEMO_BCRYPT_COST = 12;
@@ -147,6 +151,11 @@ export async function seedDemo(db: Db): Promise<string> {
       await transitionEdition(trx, id, 'draft', 'in_review', { submitted_by: designer!.id, submitted_at: new Date() });
       await transitionEdition(trx, id, 'in_review', 'approved', { decided_by: reviewer!.id, decided_at: new Date(), decision_note: 'Spacing and the boundary look even; approved for norming.' });
       created.push(`approved edition 1 of ${DEMO_SPACE.name}`);
+    }
+
+    if ((await listDisplayProfiles(trx, lab.id, { limit: 100 })).length === 0) {
+      await insertDisplayProfile(trx, lab.id, designer!.id, DEMO_DISPLAY_PROFILE);
+      created.push(`display profile ${DEMO_DISPLAY_PROFILE.name}`);
     }
   });
   return created.length ? `demo lab "${DEMO_LAB.name}": created ${created.join(', ')}` : `demo lab "${DEMO_LAB.name}" already present`;

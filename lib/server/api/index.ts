@@ -6,3 +6,4 @@ export * from './labs';
 export * from './seed-shapes';
 export * from './shape-spaces';
 export * from './editions';
+export * from './display-profiles';

@@ -1,0 +1,6 @@
+import { listDisplayProfilesRoute, createDisplayProfileRoute } from '@/lib/server/api';
+import { toHandler } from '@/lib/server/http';
+
+export const dynamic = 'force-dynamic';
+export const GET = toHandler(listDisplayProfilesRoute);
+export const POST = toHandler(createDisplayProfileRoute);
