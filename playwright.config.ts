@@ -5,6 +5,7 @@ import { defineConfig, devices } from '@playwright/test';
 const CHROMIUM = '/usr/bin/chromium';
 const port = Number(process.env.E2E_PORT ?? 3100);
 const baseURL = `http://127.0.0.1:${port}`;
+const workerPort = Number(process.env.E2E_WORKER_HEALTH_PORT ?? 3199);
 
 export default defineConfig({
   testDir: 'tests/e2e',
@@ -42,20 +43,38 @@ export default defineConfig({
       },
     },
   ],
-  webServer: {
-    command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
-    url: `${baseURL}/api/health`,
-    reuseExistingServer: !process.env.CI,
-    timeout: 120_000,
-    stdout: 'pipe',
-    stderr: 'pipe',
-    env: {
-      ...(process.env as Record<string, string>),
-      DATABASE_URL: process.env.E2E_DATABASE_URL ?? process.env.DATABASE_URL ?? '',
-      APP_URL: baseURL,
-      NEXTAUTH_URL: baseURL,
-      EPICYCLE_ENV: 'local',
-      NODE_ENV: 'production',
+  webServer: [
+    {
+      command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
+      url: `${baseURL}/api/health`,
+      reuseExistingServer: !process.env.CI,
+      timeout: 120_000,
+      stdout: 'pipe',
+      stderr: 'pipe',
+      env: {
+        ...(process.env as Record<string, string>),
+        DATABASE_URL: process.env.E2E_DATABASE_URL ?? process.env.DATABASE_URL ?? '',
+        APP_URL: baseURL,
+        NEXTAUTH_URL: baseURL,
+        EPICYCLE_ENV: 'local',
+        NODE_ENV: 'production',
+      },
     },
-  },
+    {
+      // A pack worker on the e2e database, as `npm start` runs one beside the web server.
+      command: `node --conditions=react-server --import tsx scripts/worker.ts`,
+      url: `http://127.0.0.1:${workerPort}/`,
+      reuseExistingServer: !process.env.CI,
+      timeout: 120_000,
+      stdout: 'pipe',
+      stderr: 'pipe',
+      env: {
+        ...(process.env as Record<string, string>),
+        DATABASE_URL: process.env.E2E_DATABASE_URL ?? process.env.DATABASE_URL ?? '',
+        APP_URL: baseURL,
+        EPICYCLE_ENV: 'local',
+        WORKER_HEALTH_PORT: String(workerPort),
+      },
+    },
+  ],
 });

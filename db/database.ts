@@ -162,6 +162,36 @@ export interface DisplayProfilesTable {
   updated_at: Generated<Date>;
 }
 
+export type PackState = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
+
+/** A stimulus pack: its request, its job's progress, and where the finished zip is stored. */
+export interface PacksTable {
+  id: Generated<string>;
+  lab_id: string;
+  edition_id: string;
+  display_profile_id: string | null;
+  profile: ColumnType<unknown, string, string>;
+  render_options: ColumnType<unknown, string, string>;
+  options_hash: string;
+  state: ColumnType<PackState, PackState | undefined, PackState>;
+  progress: Generated<number>;
+  stage: Generated<string>;
+  error: string | null;
+  attempts: Generated<number>;
+  cancel_requested: Generated<boolean>;
+  job_id: string | null;
+  object_key: string | null;
+  size_bytes: number | null;
+  sha256: string | null;
+  stimulus_count: number | null;
+  manifest: ColumnType<unknown | null, string | null, string | null>;
+  created_by: string | null;
+  created_at: Generated<Date>;
+  started_at: Date | null;
+  finished_at: Date | null;
+  updated_at: Generated<Date>;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
@@ -176,6 +206,7 @@ export interface Database {
   editions: EditionsTable;
   edition_comments: EditionCommentsTable;
   display_profiles: DisplayProfilesTable;
+  packs: PacksTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -189,3 +220,4 @@ export type ShapeSpaceRow = Selectable<ShapeSpacesTable>;
 export type EditionRow = Selectable<EditionsTable>;
 export type EditionCommentRow = Selectable<EditionCommentsTable>;
 export type DisplayProfileRow = Selectable<DisplayProfilesTable>;
+export type PackRow = Selectable<PacksTable>;

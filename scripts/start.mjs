@@ -1,9 +1,11 @@
 // `npm start` (and `npm run dev` with --dev): installs what is missing, starts PostgreSQL on loopback, migrates,
 // seeds the demo lab, and serves the app. Ctrl-C stops everything this script started.
 import { log } from './lib/log.mjs';
+import { join } from 'node:path';
 import { startMailCatcher } from './lib/mail.mjs';
+import { startS3Fake } from './lib/s3.mjs';
 import { ensurePostgres } from './lib/postgres.mjs';
-import { bin, ensureDependencies, runOrThrow, runTs, startService } from './lib/run.mjs';
+import { ROOT, bin, ensureDependencies, runOrThrow, runTs, startService } from './lib/run.mjs';
 
 import demo from '../db/demo-users.json' with { type: 'json' };
 
@@ -49,6 +51,11 @@ try {
     env.SMTP_URL = mail.smtpUrl;
     env.MAIL_CATCHER_URL = mail.httpUrl;
   }
+  if (!process.env.S3_ENDPOINT) {
+    const store = await startS3Fake({ port: Number(process.env.EPICYCLE_S3_PORT ?? 4569), directory: join(ROOT, '.data', 's3-dev') });
+    cleanups.push(() => store.stop());
+    Object.assign(env, store.env);
+  }
 
   await runTs('scripts/db-migrate.ts', env);
   await runTs('scripts/db-seed.ts', env);
@@ -67,6 +74,13 @@ try {
       log('start', `web server exited (${code}); stopping`);
       shutdown(code ?? 1);
     }
+  });
+
+  // One pack worker beside the web server; more can run anywhere with the same database and object store.
+  const worker = startService('worker', process.execPath, ['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], env);
+  cleanups.push(() => worker.kill('SIGTERM'));
+  worker.on('exit', (code) => {
+    if (!stopping) log('start', `pack worker exited (${code}); packs wait until a worker runs (npm run worker)`);
   });
 
   log('start', '');

@@ -12,10 +12,13 @@ const LOCAL_DEFAULTS = {
   AUTH_SECRET: 'epicycle-local-development-secret-not-for-production',
   SMTP_URL: 'smtp://127.0.0.1:2525',
   MAIL_CATCHER_URL: 'http://127.0.0.1:2580',
+  S3_ENDPOINT: 'http://127.0.0.1:4569',
+  S3_ACCESS_KEY_ID: 'S3RVER',
+  S3_SECRET_ACCESS_KEY: 'S3RVER',
 } as const;
 
 /** Variables that have no safe default outside local use. */
-export const REQUIRED_IN_PRODUCTION = ['DATABASE_URL', 'APP_URL', 'AUTH_SECRET', 'SMTP_URL'] as const;
+export const REQUIRED_IN_PRODUCTION = ['DATABASE_URL', 'APP_URL', 'AUTH_SECRET', 'SMTP_URL', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const;
 
 const EnvSchema = z.object({
   EPICYCLE_ENV: z.enum(['local', 'production']),
@@ -32,6 +35,20 @@ const EnvSchema = z.object({
   SIGNIN_LIMIT_PER_EMAIL: z.coerce.number().int().min(1).default(5),
   SIGNIN_LIMIT_PER_IP: z.coerce.number().int().min(1).default(30),
   SIGNIN_LIMIT_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
+  /** S3-compatible object store for packs; no endpoint means AWS itself (the region's default endpoint). */
+  S3_ENDPOINT: z.url({ protocol: /^https?$/ }).optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_BUCKET: z.string().min(3).default('epicycle-packs'),
+  S3_ACCESS_KEY_ID: z.string().min(1),
+  S3_SECRET_ACCESS_KEY: z.string().min(1),
+  /** Lifetime of the app's download links, and of the presigned object-store URL they redirect to. */
+  DOWNLOAD_LINK_SECONDS: z.coerce.number().int().min(5).max(24 * 3600).default(600),
+  PRESIGNED_URL_SECONDS: z.coerce.number().int().min(5).max(3600).default(60),
+  /** Pack jobs: seconds before a job whose worker went silent is retried, and how many tries. */
+  PACK_JOB_EXPIRE_SECONDS: z.coerce.number().int().min(1).default(300),
+  PACK_JOB_RETRIES: z.coerce.number().int().min(0).max(10).default(2),
+  /** PNG render threads per worker process; default: one per core. */
+  PACK_RENDER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
 });
 
 export type Env = z.infer<typeof EnvSchema>;

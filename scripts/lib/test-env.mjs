@@ -1,9 +1,15 @@
 // The throwaway test cluster and the environment every test tier runs with.
+import { join } from 'node:path';
 import { startMailCatcher } from './mail.mjs';
+import { ROOT } from './run.mjs';
+import { startS3Fake } from './s3.mjs';
 import { ensurePostgres } from './postgres.mjs';
 
 export const TEST_PG_PORT = Number(process.env.EPICYCLE_TEST_PG_PORT ?? 54339);
 export const E2E_PORT = Number(process.env.EPICYCLE_E2E_PORT ?? 3100);
+export const TEST_S3_PORT = Number(process.env.EPICYCLE_TEST_S3_PORT ?? 4579);
+/** The e2e pack worker's health port (Playwright waits on it). */
+export const E2E_WORKER_HEALTH_PORT = Number(process.env.EPICYCLE_E2E_WORKER_PORT ?? 3199);
 
 /**
  * Starts the test cluster (wiped first when `fresh`) with one database for integration tests and one for e2e.
@@ -13,6 +19,7 @@ export async function prepareTestEnvironment({ fresh }) {
   const it = await ensurePostgres({ name: 'test', port: TEST_PG_PORT, database: 'epicycle_it', fresh });
   const e2e = await ensurePostgres({ name: 'test', port: TEST_PG_PORT, database: 'epicycle_e2e' });
   const mail = await startMailCatcher({ smtpPort: 2535, httpPort: 2590 });
+  const store = await startS3Fake({ port: TEST_S3_PORT, directory: join(ROOT, '.data', 's3-test'), fresh });
   const appUrl = `http://127.0.0.1:${E2E_PORT}`;
   const env = {
     ...process.env,
@@ -26,12 +33,15 @@ export async function prepareTestEnvironment({ fresh }) {
     NEXTAUTH_URL: appUrl,
     SMTP_URL: mail.smtpUrl,
     MAIL_CATCHER_URL: mail.httpUrl,
+    ...store.env,
+    E2E_WORKER_HEALTH_PORT: String(E2E_WORKER_HEALTH_PORT),
     // Every test comes from 127.0.0.1, so the per-IP sign-in limit is raised; the per-e-mail one is tested.
     SIGNIN_LIMIT_PER_IP: '10000',
     PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1',
     NEXT_TELEMETRY_DISABLED: '1',
   };
   const stop = () => {
+    void store.stop();
     mail.stop();
     it.stop();
   };

@@ -1,0 +1,41 @@
+// `npm run worker`: a pack worker process. It takes pack jobs from the queue in PostgreSQL and renders them
+// with a worker-thread pool across all cores, uploading the zips to the object store. Run as many as you like,
+// on as many machines as share the database (DATABASE_URL) and the object store (S3_*).
+import { createServer } from 'node:http';
+import { createDb } from '@/db/client';
+import { getEnv } from '@/lib/server/env';
+import { startBoss } from '@/lib/server/jobs/boss';
+import { startPackWorker } from '@/lib/server/jobs/pack-worker';
+import { PngPool } from '@/lib/server/jobs/png-pool';
+
+const env = getEnv();
+const db = createDb(env.DATABASE_URL, 4);
+const pool = new PngPool(env.PACK_RENDER_THREADS);
+await pool.warm();
+const boss = await startBoss({ supervise: true });
+const stopWorking = await startPackWorker({ db, boss, pool });
+console.log(`[worker] taking pack jobs with ${pool.size} render threads`);
+
+// An optional health port, for process supervisors and the e2e harness.
+const healthPort = Number(process.env.WORKER_HEALTH_PORT ?? 0);
+const health = healthPort
+  ? createServer((_req, res) => {
+      res.writeHead(200, { 'content-type': 'application/json' });
+      res.end(JSON.stringify({ status: 'ok', threads: pool.size }));
+    }).listen(healthPort, '127.0.0.1')
+  : null;
+
+let stopping = false;
+async function stop(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  console.log(`[worker] ${signal}: finishing the job in hand, then stopping`);
+  health?.close();
+  await stopWorking();
+  await boss.stop({ graceful: true, wait: true });
+  await pool.close();
+  await db.destroy();
+  process.exit(0);
+}
+process.on('SIGINT', () => void stop('SIGINT'));
+process.on('SIGTERM', () => void stop('SIGTERM'));
