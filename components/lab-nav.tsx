@@ -5,6 +5,7 @@ export const LAB_SECTIONS = [
   { segment: '', label: 'Overview' },
   { segment: 'seed-shapes', label: 'Seed shapes' },
   { segment: 'spaces', label: 'Shape spaces' },
+  { segment: 'packs', label: 'Packs' },
   { segment: 'display-profiles', label: 'Display profiles' },
   { segment: 'settings/members', label: 'Members' },
   { segment: 'settings/audit', label: 'Audit log' },

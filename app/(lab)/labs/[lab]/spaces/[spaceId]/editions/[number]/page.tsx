@@ -2,6 +2,8 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { EditionReview } from '@/components/edition-review';
+import { MakePackForm } from '@/components/make-pack-form';
+import { listDisplayProfiles } from '@/lib/server/services/display-profiles';
 import { AppError } from '@/lib/errors';
 import { getDb } from '@/lib/server/db';
 import { requireLabPageActor } from '@/lib/server/page-context';
@@ -27,6 +29,8 @@ export default async function EditionPage({ params }: { params: Promise<{ lab: s
     throw e;
   });
   const isAuthor = edition.author?.id === actor.userId;
+  const canPack = can(actor.role, 'pack:create');
+  const profiles = canPack ? (await listDisplayProfiles(db, actor, { limit: 200 })).items : [];
   return (
     <>
       <p className="mb-4 text-sm text-graphite-muted">
@@ -50,6 +54,11 @@ export default async function EditionPage({ params }: { params: Promise<{ lab: s
         comments={comments}
         can={{ submit: can(actor.role, 'edition:submit'), decide: can(actor.role, 'edition:decide') && !isAuthor, comment: can(actor.role, 'edition:comment'), isAuthor }}
       />
+      {canPack ? (
+        <div className="mt-8 max-w-4xl">
+          <MakePackForm lab={lab} spaceId={spaceId} number={number} stimulusCount={edition.stimulusCount} profiles={profiles} />
+        </div>
+      ) : null}
     </>
   );
 }
