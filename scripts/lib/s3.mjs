@@ -1,6 +1,5 @@
 // The local S3-compatible object store (s3rver from npm) on loopback, for `npm start` and `npm test`.
 import { mkdirSync, rmSync } from 'node:fs';
-import S3rver from 's3rver';
 import { log } from './log.mjs';
 
 export const S3_BUCKET = 'epicycle-packs';
@@ -9,6 +8,8 @@ export const S3_BUCKET = 'epicycle-packs';
 export async function startS3Fake({ port, directory, fresh = false }) {
   if (fresh) rmSync(directory, { recursive: true, force: true });
   mkdirSync(directory, { recursive: true });
+  // Imported here, not at the top: the scripts load this file before `npm ci` has installed anything.
+  const { default: S3rver } = await import('s3rver');
   const server = new S3rver({ address: '127.0.0.1', port, directory, silent: true, configureBuckets: [{ name: S3_BUCKET }] });
   await server.run();
   const endpoint = `http://127.0.0.1:${port}`;
