@@ -27,8 +27,12 @@ describe('configuration', () => {
       AUTH_SECRET: 'x'.repeat(40),
       SMTP_URL: 'smtps://mail.example:465',
       MAIL_CATCHER_URL: 'http://127.0.0.1:2580',
+      S3_ACCESS_KEY_ID: 'AKIAEXAMPLE',
+      S3_SECRET_ACCESS_KEY: 'secret-example',
     });
     expect(env.EPICYCLE_ENV).toBe('production');
+    // No endpoint in production means AWS S3 itself; the local fake's address is never assumed.
+    expect(env.S3_ENDPOINT).toBeUndefined();
     // The dev mailbox is never on in production.
     expect(env.MAIL_CATCHER_URL).toBeUndefined();
   });
