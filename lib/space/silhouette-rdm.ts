@@ -1,6 +1,6 @@
-import { rasterizeContour } from '../shape/rasterize-contour';
-import type { Bitmask, Contour, RasterExtent } from '../shape/types';
+import type { Contour, RasterExtent } from '../shape/types';
 import { fillPairwiseRdm } from './fill-pairwise-rdm';
+import { silhouetteRuns, type SilhouetteRuns } from './silhouette-runs';
 import { SpaceError } from './space-error';
 import type { Rdm } from './types';
 
@@ -16,23 +16,6 @@ export interface SilhouetteRdmOptions {
   /** The square every contour is rasterised on; default the union bounding square of all of them plus 2 %. */
   readonly extent?: RasterExtent;
   readonly onProgress?: (fraction: number) => void;
-}
-
-/** A mask with its pixel count and the rows and words that hold any pixel. */
-interface MaskSummary {
-  readonly bits: Uint32Array;
-  readonly count: number;
-  readonly top: number;
-  readonly bottom: number;
-  readonly left: number;
-  readonly right: number;
-}
-
-/** Set bits in a 32-bit word (SWAR popcount, Hacker's Delight §5-1). */
-function popcount(word: number): number {
-  let v = word - ((word >>> 1) & 0x55555555);
-  v = (v & 0x33333333) + ((v >>> 2) & 0x33333333);
-  return (Math.imul((v + (v >>> 4)) & 0x0f0f0f0f, 0x01010101) >>> 24) & 0xff;
 }
 
 /** Stage: one square around every contour. */
@@ -51,37 +34,39 @@ function unionExtent(contours: readonly Contour[]): RasterExtent {
   return { minX: (minX + maxX - size) / 2, minY: (minY + maxY - size) / 2, size };
 }
 
-/** Stage: pixel count and occupied rows and words of a mask. */
-function summarize(mask: Bitmask): MaskSummary {
-  const { bits, wordsPerRow, resolution } = mask;
-  let count = 0, top = resolution, bottom = -1, left = wordsPerRow, right = -1;
-  for (let row = 0; row < resolution; row++) {
-    for (let w = 0; w < wordsPerRow; w++) {
-      const word = bits[row * wordsPerRow + w] as number;
-      if (word === 0) continue;
-      count += popcount(word);
-      top = Math.min(top, row);
-      bottom = row;
-      left = Math.min(left, w);
-      right = Math.max(right, w);
-    }
-  }
-  return { bits, count, top, bottom, left, right };
-}
-
-/** Stage: |A ∩ B| over the rows and words both masks occupy. */
-function intersectionCount(a: MaskSummary, b: MaskSummary, wordsPerRow: number): number {
+/** Stage: |A ∩ B|, the overlap of the two masks' runs summed over the rows both occupy. */
+function runsIntersection(a: SilhouetteRuns, b: SilhouetteRuns): number {
   const top = Math.max(a.top, b.top), bottom = Math.min(a.bottom, b.bottom);
-  const left = Math.max(a.left, b.left), right = Math.min(a.right, b.right);
-  const pa = a.bits, pb = b.bits;
+  const pa = a.span, pb = b.span;
+  if (pa && pb) {
+    let overlap = 0;
+    for (let k = 2 * top, end = 2 * bottom; k <= end; k += 2) {
+      const fromA = pa[k] as number, fromB = pb[k] as number, toA = pa[k + 1] as number, toB = pb[k + 1] as number;
+      const d = (toA < toB ? toA : toB) - (fromA > fromB ? fromA : fromB);
+      if (d > 0) overlap += d;
+    }
+    return overlap;
+  }
+  const ra = a.runs, rb = b.runs, sa = a.rowStart, sb = b.rowStart;
   let count = 0;
   for (let row = top; row <= bottom; row++) {
-    const base = row * wordsPerRow;
-    for (let w = left; w <= right; w++) {
-      const both = (pa[base + w] as number) & (pb[base + w] as number);
-      // Inside a shape whole words are set; `&` yields −1 for all 32 bits.
-      if (both === -1) count += 32;
-      else if (both !== 0) count += popcount(both);
+    let i = sa[row] as number, j = sb[row] as number;
+    const iEnd = sa[row + 1] as number, jEnd = sb[row + 1] as number;
+    if (iEnd - i === 1 && jEnd - j === 1) {
+      // The common case: one run each.
+      const from = Math.max(ra[2 * i] as number, rb[2 * j] as number);
+      const to = Math.min(ra[2 * i + 1] as number, rb[2 * j + 1] as number);
+      if (to > from) count += to - from;
+      continue;
+    }
+    // Merge-join two sorted lists of disjoint runs.
+    while (i < iEnd && j < jEnd) {
+      const aTo = ra[2 * i + 1] as number, bTo = rb[2 * j + 1] as number;
+      const from = Math.max(ra[2 * i] as number, rb[2 * j] as number);
+      const to = Math.min(aTo, bTo);
+      if (to > from) count += to - from;
+      if (aTo <= bTo) i++;
+      else j++;
     }
   }
   return count;
@@ -89,10 +74,11 @@ function intersectionCount(a: MaskSummary, b: MaskSummary, wordsPerRow: number):
 
 /**
  * The silhouette RDM: entry (i, j) is 1 − IoU = 1 − |A ∩ B| / |A ∪ B| of the filled shapes on one common raster
- * (`lib/shape`'s `rasterizeContour`: a pixel is set when its centre is inside, even–odd rule). Each contour is
- * rasterised once; each pair costs one AND and popcount per word over the rows and words both occupy, with
- * |A ∪ B| = |A| + |B| − |A ∩ B|. Position matters (no alignment): the stimuli are compared as drawn. In [0, 1];
- * two empty masks are at 0. Row-major, symmetric, zero diagonal.
+ * (the pixels of `lib/shape`'s `rasterizeContour`: a pixel is set when its centre is inside, even–odd rule).
+ * Each contour is rasterised once, straight to runs of set pixels per row (`silhouetteRuns`); each pair then
+ * costs one overlap of runs per row both occupy (`runsIntersection` — the same integer as a word-wise AND and
+ * popcount of the bitmasks, in a fraction of the time), with |A ∪ B| = |A| + |B| − |A ∩ B|.
+ * Position matters (no alignment): the stimuli are compared as drawn. In [0, 1]; two empty masks are at 0. Row-major, symmetric, zero diagonal.
  */
 export function silhouetteRdm(contours: readonly Contour[], options: SilhouetteRdmOptions = {}): Rdm {
   const resolution = options.resolution ?? DEFAULT_SILHOUETTE_RESOLUTION;
@@ -101,15 +87,14 @@ export function silhouetteRdm(contours: readonly Contour[], options: SilhouetteR
   if (n === 0) return { size: 0, values: new Float64Array(0) };
   // Phase 1: one extent, one mask per contour.
   const extent = options.extent ?? unionExtent(contours);
-  const masks = contours.map((c) => summarize(rasterizeContour(c, { resolution, extent })));
-  const wordsPerRow = Math.ceil(resolution / 32);
+  const masks = contours.map((c) => silhouetteRuns(c, resolution, extent));
   // Phase 2: the pairs.
   return fillPairwiseRdm(
     n,
     (i, j) => {
-      const a = masks[i] as MaskSummary;
-      const b = masks[j] as MaskSummary;
-      const intersection = a.count === 0 || b.count === 0 ? 0 : intersectionCount(a, b, wordsPerRow);
+      const a = masks[i] as SilhouetteRuns;
+      const b = masks[j] as SilhouetteRuns;
+      const intersection = a.count === 0 || b.count === 0 ? 0 : runsIntersection(a, b);
       const union = a.count + b.count - intersection;
       return union === 0 ? 0 : 1 - intersection / union;
     },
