@@ -6,7 +6,7 @@ import { drawnSize } from '../render/drawn-size';
 import { frameStimuli } from '../render/frame-stimuli';
 import { RenderError } from '../render/render-error';
 import { resolveRender } from '../render/resolve-render';
-import { stimulusSvg } from '../render/stimulus-svg';
+import { stimulusSvgPair } from '../render/stimulus-svg';
 import { SpaceError } from '../space/space-error';
 import { descriptorArea } from '../shape/descriptor-area';
 import { descriptorPerimeter } from '../shape/descriptor-perimeter';
@@ -103,13 +103,20 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
   progress?.('synthesize', 1);
 
   // Phase 3: SVGs; then every PNG handed to the back end before the RDMs, so they render meanwhile.
-  const svgFiles = time('svg', () => stimuli.map((s, i) => hashed(`stimuli/svg/${s.id}.svg`, encoder.encode(stimulusSvg(contours[i]!, frame, render)))));
+  const pixelSvgs: string[] = [];
+  const svgFiles = time('svg', () =>
+    stimuli.map((s, i) => {
+      const { physical, pixels } = stimulusSvgPair(contours[i]!, frame, render);
+      pixelSvgs.push(pixels);
+      return hashed(`stimuli/svg/${s.id}.svg`, encoder.encode(physical));
+    }),
+  );
   progress?.('svg', 1);
   let rendered = 0;
   const pngAll = Promise.all(
     stimuli.map((s, i) =>
       backends
-        .renderPng({ id: s.id, svg: stimulusSvg(contours[i]!, frame, render, { units: 'pixels' }), sizePx: frame.canvasPx, channels: render.pngChannels })
+        .renderPng({ id: s.id, svg: pixelSvgs[i]!, sizePx: frame.canvasPx, channels: render.pngChannels })
         .then((bytes) => {
           rendered++;
           progress?.('png', rendered / stimuli.length);

@@ -8,9 +8,34 @@ import type { Rdm } from '../space/types';
 export const RDM_DECIMALS = 7;
 const SCALE = 10 ** RDM_DECIMALS;
 
-/** One value rounded to `RDM_DECIMALS` places, printed in shortest round-trip form (`0.1234567`, `0`, `1.5`). */
-function formatValue(value: number): string {
-  return String(Math.round(value * SCALE) / SCALE + 0);
+/** Past this many units of 1e-7 (1e8 in the matrix's unit) values are printed by `String` itself. */
+const FAST_LIMIT = 1e15;
+/** Below this many units of 1e-7 (1e-6), ECMAScript's Number-to-String writes an exponent (`5e-7`). */
+const EXPONENT_BELOW = 10;
+
+/**
+ * One value rounded to `RDM_DECIMALS` places, printed in shortest round-trip form (`0.1234567`, `0`, `1.5`,
+ * `5e-7`) — exactly `String(Math.round(value · 10⁷) / 10⁷ + 0)`, but built from the integer count of 1e-7
+ * units: the quotient is the double nearest that decimal, and no shorter decimal is as near (a double holds
+ * ~16 significant digits, these have at most 15), so its shortest form is the decimal itself.
+ */
+export function formatRdmValue(value: number): string {
+  const units = Math.round(value * SCALE);
+  if (!(Math.abs(units) < FAST_LIMIT)) return String(units / SCALE + 0);
+  if (units === 0) return '0';
+  const sign = units < 0 ? '-' : '';
+  const magnitude = Math.abs(units);
+  if (magnitude < EXPONENT_BELOW) return `${sign}${magnitude}e-${RDM_DECIMALS}`;
+  const whole = Math.floor(magnitude / SCALE);
+  let fraction = magnitude - whole * SCALE;
+  if (fraction === 0) return `${sign}${whole}`;
+  let digits = RDM_DECIMALS;
+  while (fraction % 10 === 0) {
+    fraction /= 10;
+    digits--;
+  }
+  const text = String(fraction);
+  return `${sign}${whole}.${'0000000'.slice(0, digits - text.length)}${text}`;
 }
 
 /**
@@ -25,7 +50,7 @@ export function rdmTsv(rdm: Rdm, ids: readonly string[]): string {
   for (let i = 0; i < n; i++) {
     row[0] = ids[i] as string;
     const base = i * n;
-    for (let j = 0; j < n; j++) row[j + 1] = formatValue(rdm.values[base + j] as number);
+    for (let j = 0; j < n; j++) row[j + 1] = formatRdmValue(rdm.values[base + j] as number);
     lines.push(row.join('\t'));
   }
   return lines.join('\n') + '\n';

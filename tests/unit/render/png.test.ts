@@ -1,6 +1,6 @@
 import { PNG } from 'pngjs';
 import { describe, expect, it } from 'vitest';
-import { frameStimuli, resolveRender, stimulusSvg, type DisplayProfile, type RenderOptions } from '@/lib/render';
+import { frameStimuli, resolveRender, stimulusSvg, stimulusSvgPair, type DisplayProfile, type RenderOptions } from '@/lib/render';
 import sharp from 'sharp';
 import { PNG_COMPRESSION_LEVEL, renderPng } from '@/lib/render/render-png';
 import { synthesizeContour, type RadialDescriptor } from '@/lib/shape';
@@ -132,6 +132,18 @@ describe('SVG documents', () => {
     expect(svg).not.toContain('<rect');
     expect(svg).toContain('fill="#000000"');
     expect(stimulusSvg(contour, frame, render, { units: 'pixels' })).toContain(`width="${frame.canvasPx}" height="${frame.canvasPx}"`);
+  });
+
+  it('stimulusSvgPair gives exactly the physical and the pixel documents of stimulusSvg', () => {
+    for (const over of [{}, { antiAlias: false, transparent: true }, { style: 'outline' as const, strokeArcmin: 6 }]) {
+      const render = resolveRender(PROFILE, options(over));
+      const contour = synthesizeContour({ family: 'radial', baseRadius: 1, terms: [{ k: 5, amplitude: 0.2, phase: 1 }] }, 97);
+      const frame = frameStimuli([contour], render);
+      const pair = stimulusSvgPair(contour, frame, render);
+      expect(pair.physical).toBe(stimulusSvg(contour, frame, render));
+      expect(pair.pixels).toBe(stimulusSvg(contour, frame, render, { units: 'pixels' }));
+      expect(pair.physical).not.toBe(pair.pixels);
+    }
   });
 
   it('refuses stimuli that reach past the canvas', () => {
