@@ -131,3 +131,51 @@ export function silhouetteRuns(contour: Contour, resolution: number, extent: Ras
   }
   return { resolution, count, top, bottom, rowStart, runs, span };
 }
+
+/** Stage: |A ∩ B|, the overlap of the two masks' runs summed over the rows both occupy. */
+function runsIntersection(a: SilhouetteRuns, b: SilhouetteRuns): number {
+  const top = Math.max(a.top, b.top), bottom = Math.min(a.bottom, b.bottom);
+  const pa = a.span, pb = b.span;
+  if (pa && pb) {
+    let overlap = 0;
+    for (let k = 2 * top, end = 2 * bottom; k <= end; k += 2) {
+      const fromA = pa[k] as number, fromB = pb[k] as number, toA = pa[k + 1] as number, toB = pb[k + 1] as number;
+      const d = (toA < toB ? toA : toB) - (fromA > fromB ? fromA : fromB);
+      if (d > 0) overlap += d;
+    }
+    return overlap;
+  }
+  const ra = a.runs, rb = b.runs, sa = a.rowStart, sb = b.rowStart;
+  let count = 0;
+  for (let row = top; row <= bottom; row++) {
+    let i = sa[row] as number, j = sb[row] as number;
+    const iEnd = sa[row + 1] as number, jEnd = sb[row + 1] as number;
+    if (iEnd - i === 1 && jEnd - j === 1) {
+      // The common case: one run each.
+      const from = Math.max(ra[2 * i] as number, rb[2 * j] as number);
+      const to = Math.min(ra[2 * i + 1] as number, rb[2 * j + 1] as number);
+      if (to > from) count += to - from;
+      continue;
+    }
+    // Merge-join two sorted lists of disjoint runs.
+    while (i < iEnd && j < jEnd) {
+      const aTo = ra[2 * i + 1] as number, bTo = rb[2 * j + 1] as number;
+      const from = Math.max(ra[2 * i] as number, rb[2 * j] as number);
+      const to = Math.min(aTo, bTo);
+      if (to > from) count += to - from;
+      if (aTo <= bTo) i++;
+      else j++;
+    }
+  }
+  return count;
+}
+
+/**
+ * 1 − IoU = 1 − |A ∩ B| / (|A| + |B| − |A ∩ B|) of two masks on the same raster; 0 for two empty masks. The
+ * pairwise distance of `silhouetteRdm` and `silhouetteRdmRows`.
+ */
+export function silhouetteRunsDistance(a: SilhouetteRuns, b: SilhouetteRuns): number {
+  const intersection = a.count === 0 || b.count === 0 ? 0 : runsIntersection(a, b);
+  const union = a.count + b.count - intersection;
+  return union === 0 ? 0 : 1 - intersection / union;
+}

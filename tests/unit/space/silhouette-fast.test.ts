@@ -1,9 +1,21 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { rasterizeContour, silhouetteDistance, synthesizeContour, type Contour, type RasterExtent } from '@/lib/shape';
-import { rdmEntry, silhouetteRdm } from '@/lib/space';
+import {
+  descriptorSpectrum,
+  generateSpace,
+  rdmEntry,
+  rdmFromRows,
+  silhouetteExtent,
+  silhouetteRdm,
+  silhouetteRdmRows,
+  spectrumRdm,
+  spectrumRdmRows,
+  splitRdmRows,
+  stimulusContour,
+} from '@/lib/space';
 import { silhouetteRuns } from '@/lib/space/silhouette-runs';
-import { PROPERTY_SEED } from './support';
+import { PROPERTY_SEED, radialSpace } from './support';
 
 /** A closed polygon from polar vertices: radius r_i at angle θ_i (unsorted angles make self-crossing outlines). */
 const polygon = (vertices: readonly (readonly [number, number])[], shift: readonly [number, number]): Contour => ({
@@ -80,5 +92,46 @@ describe('silhouette RDM fast path', () => {
     expect(() => silhouetteRuns(contour, 4097, extent)).toThrow(/resolution/);
     expect(() => silhouetteRuns(contour, 2.5, extent)).toThrow(/resolution/);
     expect(() => silhouetteRuns(contour, 16, { minX: 0, minY: 0, size: 0 })).toThrow(/extent/);
+  });
+});
+
+describe('RDM rows computed apart', () => {
+  const stimuli = generateSpace(radialSpace({ kind: 'rings', rings: 3, spokes: 7 })).stimuli;
+  const contours = stimuli.map((s) => stimulusContour(s, 128));
+  const spectra = stimuli.map((s) => descriptorSpectrum(s.descriptor));
+
+  it('splitRdmRows covers every row once, in blocks of about equal pair counts', () => {
+    for (const [n, parts] of [[22, 4], [1001, 8], [5, 9], [1, 3], [2, 2]] as const) {
+      const blocks = splitRdmRows(n, parts);
+      expect(blocks[0]!.from).toBe(0);
+      expect(blocks.at(-1)!.to).toBe(n);
+      blocks.forEach((b, i) => {
+        expect(b.to).toBeGreaterThan(b.from);
+        if (i > 0) expect(b.from).toBe(blocks[i - 1]!.to);
+      });
+      if (n === 1001) {
+        const pairs = blocks.map((b) => ((b.to - b.from) * (2 * n - 1 - b.from - b.to)) / 2);
+        expect(Math.max(...pairs) / Math.min(...pairs)).toBeLessThan(1.02);
+      }
+    }
+  });
+
+  it('silhouette and contour blocks join to exactly the whole-matrix values', () => {
+    const extent = silhouetteExtent(contours);
+    for (const parts of [1, 3, 5]) {
+      const blocks = splitRdmRows(contours.length, parts);
+      const silhouette = rdmFromRows(contours.length, blocks.map((b) => silhouetteRdmRows(contours, b.from, b.to, { resolution: 96, extent })).reverse());
+      expect(Array.from(silhouette.values)).toEqual(Array.from(silhouetteRdm(contours, { resolution: 96 }).values));
+      const contour = rdmFromRows(spectra.length, blocks.map((b) => spectrumRdmRows(spectra, b.from, b.to)));
+      expect(Array.from(contour.values)).toEqual(Array.from(spectrumRdm(spectra).values));
+    }
+  });
+
+  it('refuses blocks that miss or repeat a row', () => {
+    const a = spectrumRdmRows(spectra, 0, 10);
+    const b = spectrumRdmRows(spectra, 10, spectra.length);
+    expect(() => rdmFromRows(spectra.length, [a])).toThrow(/no block/);
+    expect(() => rdmFromRows(spectra.length, [a, a, b])).toThrow(/two blocks/);
+    expect(() => spectrumRdmRows(spectra, 5, 2)).toThrow(RangeError);
   });
 });
