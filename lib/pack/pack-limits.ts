@@ -6,6 +6,9 @@
  *   where the zip stage dominated at level 6. PNGs are stored, being deflated already.
  * - Zip dates hold 1980…2107 (MS-DOS date fields).
  * - `silhouetteResolution` 256: the silhouette RDM's raster, `lib/space`'s default, so pack and audit agree.
+ * - `rdmBlocks` 6, `tsvBlocks` 3, `perimeterBlocks` 2: how many `PackJob`s the contour and silhouette RDMs, each
+ *   RDM table and the perimeters are split into, so two or more worker threads share them evenly while the PNGs
+ *   render; more blocks would mostly add copying (a silhouette block carries its contours).
  */
 export const PACK_LIMITS = {
   schemaVersion: 1,
@@ -13,6 +16,9 @@ export const PACK_LIMITS = {
   minZipYear: 1980,
   maxZipYear: 2107,
   silhouetteResolution: 256,
+  rdmBlocks: 6,
+  tsvBlocks: 3,
+  perimeterBlocks: 2,
 } as const;
 
 /** The product's name as it appears in manifests. */

@@ -39,19 +39,30 @@ export function formatRdmValue(value: number): string {
 }
 
 /**
+ * Lines `from` … `to − 1` of `rdmTsv`'s table — preceded by its header line when `from` is 0 — each ending in LF,
+ * from those rows of the matrix (`rows`: row-major, `ids.length` values a row, row `from` first). Joined in
+ * order, the blocks of a split give exactly `rdmTsv`'s text.
+ */
+export function rdmTsvRows(rows: Float64Array, ids: readonly string[], from: number, to: number): string {
+  const n = ids.length;
+  if (rows.length !== (to - from) * n) throw new RangeError(`rows ${from} … ${to} of an RDM of size ${n} are ${(to - from) * n} values, got ${rows.length}`);
+  const lines: string[] = from === 0 ? [['id', ...ids].join('\t')] : [];
+  const row: string[] = new Array<string>(n + 1);
+  for (let i = from; i < to; i++) {
+    row[0] = ids[i] as string;
+    const base = (i - from) * n;
+    for (let j = 0; j < n; j++) row[j + 1] = formatRdmValue(rows[base + j] as number);
+    lines.push(row.join('\t'));
+  }
+  return lines.length === 0 ? '' : lines.join('\n') + '\n';
+}
+
+/**
  * An RDM as tab-separated text: a header row `id` then the stimulus ids, then one row per stimulus, its id then
  * its n values (rounded to 7 decimals, `RDM_DECIMALS`), lines ending in LF. The same matrix always gives the same text.
  */
 export function rdmTsv(rdm: Rdm, ids: readonly string[]): string {
   const n = rdm.size;
   if (ids.length !== n) throw new RangeError(`an RDM of size ${n} needs ${n} ids, got ${ids.length}`);
-  const lines: string[] = [['id', ...ids].join('\t')];
-  const row: string[] = new Array<string>(n + 1);
-  for (let i = 0; i < n; i++) {
-    row[0] = ids[i] as string;
-    const base = i * n;
-    for (let j = 0; j < n; j++) row[j + 1] = formatRdmValue(rdm.values[base + j] as number);
-    lines.push(row.join('\t'));
-  }
-  return lines.join('\n') + '\n';
+  return rdmTsvRows(rdm.values, ids, 0, n);
 }
