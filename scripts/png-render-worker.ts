@@ -1,7 +1,7 @@
 // Worker-thread entry of the pack pool: rasterises stimulus SVGs with sharp (lib/render/render-png.ts) and runs
 // lib/pack's pure jobs (RDM rows, RDM table lines, perimeters; runPackJob). Messages:
 // in { seq, request: PngRequest } → out { seq, bytes } (transferred) or { seq, error };
-// in { seq, job: PackJob } → out { seq, result } (its typed array transferred) or { seq, error }.
+// in { seq, job: PackJob } → out { seq, result } (its bytes or values transferred) or { seq, error }.
 // sharp renders on libuv's thread pool, so a job running on this thread does not hold up PNGs already started.
 import { parentPort } from 'node:worker_threads';
 import sharp from 'sharp';
@@ -19,18 +19,16 @@ const message = (error: unknown): string => (error instanceof Error ? error.mess
 /** The buffer to transfer with a job's result (each result owns its buffer). */
 function transferable(result: PackJobResult): ArrayBuffer {
   // Typed arrays have a values() method too, so test for one, not for the property.
-  const array = ArrayBuffer.isView(result) ? result : result.values;
+  const array = ArrayBuffer.isView(result) ? result : 'bytes' in result ? result.bytes : result.values;
   return array.buffer as ArrayBuffer;
 }
 
 port.on('message', (m: { seq: number; request?: PngRequest; job?: PackJob }) => {
   if (m.job) {
-    try {
-      const result = runPackJob(m.job);
-      port.postMessage({ seq: m.seq, result }, [transferable(result)]);
-    } catch (error) {
-      port.postMessage({ seq: m.seq, error: message(error) });
-    }
+    runPackJob(m.job).then(
+      (result) => port.postMessage({ seq: m.seq, result }, [transferable(result)]),
+      (error: unknown) => port.postMessage({ seq: m.seq, error: message(error) }),
+    );
     return;
   }
   if (!m.request) return;

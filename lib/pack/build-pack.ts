@@ -23,6 +23,7 @@ import { sha256Sums } from './sha256-sums';
 import { stimuliCsv } from './stimuli-csv';
 import { synthesizeStimuli } from './synthesize-stimuli';
 import { trialListCsv } from './trial-list-csv';
+import type { PremadeZip } from './zip-entries';
 import { zipPack } from './zip-pack';
 import type { BuiltPack, ManifestRdm, ManifestStimulus, PackBackends, PackFile, PackInput, PackManifest, PackStage } from './types';
 
@@ -39,7 +40,7 @@ const encoder = new TextEncoder();
 const byPath = (p: { path: string }, q: { path: string }): number => (p.path < q.path ? -1 : p.path > q.path ? 1 : 0);
 const defaultSha256Hex = (bytes: Uint8Array): string => toHex(sha256(bytes));
 /** Without a `runJob` back end, each job runs here when it is handed out. */
-const runHere: PackJobRunner = (job) => Promise.resolve(runPackJob(job));
+const runHere: PackJobRunner = (job) => runPackJob(job);
 
 /** Splits 0 … n into at most `parts` consecutive, non-empty, about equal ranges. */
 function splitEvenly(n: number, parts: number): { from: number; to: number }[] {
@@ -149,6 +150,12 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
     splitEvenly(stimuli.length, PACK_LIMITS.perimeterBlocks).map(({ from, to }) => run({ kind: 'perimeters', descriptors: stimuli.slice(from, to).map((s) => s.descriptor) })),
   );
   perimetersReady.catch(() => undefined);
+  // The SVGs' DEFLATE work, ahead of the zip: runs of consecutive paths, each its own zip (zipEntries).
+  const date = new Date(Date.parse(input.edition.createdAt));
+  const sortedSvgs = [...svgFiles].sort(byPath);
+  const premade: Promise<PremadeZip>[] = splitEvenly(sortedSvgs.length, PACK_LIMITS.svgZipBlocks).map(({ from, to }) =>
+    run({ kind: 'zip-entries', files: sortedSvgs.slice(from, to).map(({ path, data, compression }) => ({ path, data, compression })), dateMs: date.getTime() }),
+  );
   timings.rdm += performance.now() - rdmStart;
 
   // Phase 5: what needs no job result, here meanwhile: categories, areas, drawn sizes.
@@ -165,6 +172,8 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
   timings.rdm += performance.now() - rdmWait;
   const rdmFiles = RDM_FILES.map((r) => ({ ...r, path: `rdm/${r.name}.tsv` }));
   const rdmPackFiles = rdmFiles.map((r, i) => hashed(r.path, rdmTexts[i]!));
+  for (const { path, data, compression } of rdmPackFiles) premade.push(run({ kind: 'zip-entries', files: [{ path, data, compression }], dateMs: date.getTime() }));
+  for (const p of premade) p.catch(() => undefined);
   const perimeters = (await perimetersReady).flatMap((block) => Array.from(block));
 
   // Phase 7: the PNGs.
@@ -266,11 +275,10 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
   });
   progress?.('tables', 1);
 
-  const date = new Date(Date.parse(input.edition.createdAt));
   return {
     manifest: built.manifest,
     files: built.files,
     timings,
-    writeZip: (sink) => zipPack(built.files, date, sink),
+    writeZip: async (sink) => zipPack(built.files, date, sink, await Promise.all(premade)),
   };
 }

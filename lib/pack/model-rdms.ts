@@ -35,23 +35,24 @@ export function modelRdms(stimuli: readonly PackStimulus[], contours: readonly C
 
 /**
  * The same three RDMs as `modelRdms`, with the same values, the contour and silhouette ones split into
- * `PACK_LIMITS.rdmBlocks` blocks of rows each (`splitRdmRows`), all handed to `run` at once and joined
+ * `PACK_LIMITS.rdmBlocks` and `silhouetteBlocks` blocks of rows (`splitRdmRows`), all handed to `run` at once and joined
  * (`rdmFromRows`); the design RDM is computed here meanwhile. `onProgress(fraction)` as blocks complete.
  */
 export async function computeModelRdms(stimuli: readonly PackStimulus[], contours: readonly Contour[], run: PackJobRunner, onProgress?: (fraction: number) => void): Promise<ModelRdms> {
   const n = stimuli.length;
   const blocks = splitRdmRows(n, PACK_LIMITS.rdmBlocks);
+  const silhouetteBlocks = splitRdmRows(n, PACK_LIMITS.silhouetteBlocks);
   const spectra = stimuli.map((s) => descriptorSpectrum(s.descriptor));
   const extent = silhouetteExtent(contours);
   let done = 0;
-  const total = 2 * blocks.length;
+  const total = blocks.length + silhouetteBlocks.length;
   const counted = (rows: RdmRows): RdmRows => {
     done++;
     onProgress?.(done / total);
     return rows;
   };
   const contourRows = blocks.map((b) => run({ kind: 'contour-rows', spectra, from: b.from, to: b.to }).then(counted));
-  const silhouetteRows = blocks.map((b) =>
+  const silhouetteRows = silhouetteBlocks.map((b) =>
     run({ kind: 'silhouette-rows', contours: contours.slice(b.from), size: n, from: b.from, to: b.to, resolution: PACK_LIMITS.silhouetteResolution, extent }).then(counted),
   );
   const design = designRdm(stimuli);

@@ -4,6 +4,8 @@ import { silhouetteRdmRows } from '../space/silhouette-rdm-rows';
 import { spectrumRdmRows } from '../space/spectrum-rdm-rows';
 import type { ContourSpectrum, RdmRows } from '../space/types';
 import { rdmTsvRows } from './rdm-tsv';
+import type { PackFile } from './types';
+import { zipEntries, type PremadeZip } from './zip-entries';
 
 /**
  * A CPU-heavy, pure piece of a pack build, as plain data (typed arrays and plain objects), so a back end can run
@@ -13,7 +15,9 @@ import { rdmTsvRows } from './rdm-tsv';
  *   (the rows need no earlier ones), `size` the whole matrix's, `extent` the one of all stimuli;
  * - `perimeters`: `descriptorPerimeter` of each descriptor;
  * - `tsv-rows`: lines `from` … `to − 1` of an RDM table (`rdmTsvRows`; the header too when `from` is 0) as
- *   UTF-8, from those full rows of the matrix (`rows`, row-major, `ids.length` values each).
+ *   UTF-8, from those full rows of the matrix (`rows`, row-major, `ids.length` values each);
+ * - `zip-entries`: a zip of consecutive pack files, compressed ahead for `zipPack` (`zipEntries`), dated
+ *   `dateMs` (ms since 1970, UTC).
  */
 export type PackJob =
   | { readonly kind: 'contour-rows'; readonly spectra: readonly ContourSpectrum[]; readonly from: number; readonly to: number }
@@ -27,7 +31,8 @@ export type PackJob =
       readonly extent: RasterExtent;
     }
   | { readonly kind: 'perimeters'; readonly descriptors: readonly ShapeDescriptor[] }
-  | { readonly kind: 'tsv-rows'; readonly ids: readonly string[]; readonly rows: Float64Array; readonly from: number; readonly to: number };
+  | { readonly kind: 'tsv-rows'; readonly ids: readonly string[]; readonly rows: Float64Array; readonly from: number; readonly to: number }
+  | { readonly kind: 'zip-entries'; readonly files: readonly Pick<PackFile, 'path' | 'data' | 'compression'>[]; readonly dateMs: number };
 
 /** What each kind of job gives back. */
 export interface PackJobResults {
@@ -35,6 +40,7 @@ export interface PackJobResults {
   readonly 'silhouette-rows': RdmRows;
   readonly perimeters: Float64Array;
   readonly 'tsv-rows': Uint8Array;
+  readonly 'zip-entries': PremadeZip;
 }
 
 /** The result of a job of kind K. */
@@ -45,9 +51,9 @@ export type PackJobRunner = <J extends PackJob>(job: J) => Promise<PackJobResult
 
 const encoder = new TextEncoder();
 
-/** Runs one `PackJob` here and now. Worker threads call this with the jobs `buildPack` hands to `runJob`. */
-export function runPackJob<J extends PackJob>(job: J): PackJobResult<J['kind']>;
-export function runPackJob(job: PackJob): PackJobResult {
+/** Runs one `PackJob` here. Worker threads call this with the jobs `buildPack` hands to `runJob`. */
+export function runPackJob<J extends PackJob>(job: J): Promise<PackJobResult<J['kind']>>;
+export async function runPackJob(job: PackJob): Promise<PackJobResult> {
   switch (job.kind) {
     case 'contour-rows':
       return spectrumRdmRows(job.spectra, job.from, job.to);
@@ -61,5 +67,7 @@ export function runPackJob(job: PackJob): PackJobResult {
       return Float64Array.from(job.descriptors, descriptorPerimeter);
     case 'tsv-rows':
       return encoder.encode(rdmTsvRows(job.rows, job.ids, job.from, job.to));
+    case 'zip-entries':
+      return zipEntries(job.files, new Date(job.dateMs));
   }
 }

@@ -218,13 +218,7 @@ describe('stimulus pack zip', () => {
     const runJob: PackJobRunner = (job) => {
       handedOut++;
       return new Promise((resolve, reject) => {
-        queued.push(() => {
-          try {
-            resolve(runPackJob(structuredClone(job)));
-          } catch (error) {
-            reject(error);
-          }
-        });
+        queued.push(() => void runPackJob(structuredClone(job)).then(resolve, reject));
         queueMicrotask(() => setTimeout(() => queued.splice(0).reverse().forEach((f) => f()), 0));
       });
     };
