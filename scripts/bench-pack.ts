@@ -1,24 +1,26 @@
 // Benchmark of lib/pack (`npm run bench:pack`): one stimulus pack end to end — Rings 10 × 100 + centre (1,001
 // layout stimuli) plus two boundaries' prototypes, 512 samples, 512 × 512 PNG, the three model RDMs, tables,
-// checksums and the zip streamed to a temporary file. PNGs render in a worker_threads pool (one worker per core)
-// while the main thread computes the RDMs. A script, not a test: the figures depend on the machine and its load.
-// Prints one JSON line: stimuli, seconds, stimuli_per_s, peak_rss_mb, breakdown (ms per stage).
+// checksums and the zip streamed to a temporary file. A worker_threads pool (one worker per core) renders the
+// PNGs and runs lib/pack's jobs (contour and silhouette RDM rows, RDM table lines, perimeters) while the main
+// thread does the rest. A script, not a test: the figures depend on the machine and its load.
+// Prints one JSON line: stimuli, seconds, stimuli_per_s, peak_rss_mb, cpu_s (all threads), load average,
+// breakdown (ms per stage).
 import { createHash } from 'node:crypto';
 import { createWriteStream } from 'node:fs';
 import { mkdtemp, rm, stat } from 'node:fs/promises';
-import { availableParallelism, tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { buildPack, type PackInput, type PackPngRequest } from '../lib/pack/index';
+import { buildPack, type PackInput, type PackJob, type PackJobResult, type PackPngRequest } from '../lib/pack/index';
 import type { PngRequest } from '../lib/render/render-png';
 
 const TSX_API = import.meta.resolve('tsx/esm/api');
 const WORKER_ENTRY = new URL('./png-render-worker.ts', import.meta.url).href;
 
-/** A pool of PNG workers: requests spread round-robin, each worker keeps several in flight. */
-class PngPool {
+/** A pool of workers for PNGs and pack jobs: requests spread round-robin, each worker keeps several in flight. */
+class PackPool {
   private readonly workers: Worker[];
-  private readonly pending = new Map<number, { resolve: (b: Uint8Array) => void; reject: (e: Error) => void }>();
+  private readonly pending = new Map<number, { resolve: (b: never) => void; reject: (e: Error) => void }>();
   private seq = 0;
 
   constructor(size: number) {
@@ -26,12 +28,13 @@ class PngPool {
       // Node 20 does not pass the tsx loader on to worker threads: the worker registers it, then loads the entry.
       const bootstrap = `import(${JSON.stringify(TSX_API)}).then((tsx) => { tsx.register(); return import(${JSON.stringify(WORKER_ENTRY)}); });`;
       const worker = new Worker(bootstrap, { eval: true });
-      worker.on('message', (m: { seq: number; bytes?: Uint8Array; error?: string }) => {
+      worker.on('message', (m: { seq: number; bytes?: Uint8Array; result?: PackJobResult; error?: string }) => {
         const job = this.pending.get(m.seq);
         if (!job) return;
         this.pending.delete(m.seq);
-        if (m.bytes) job.resolve(m.bytes);
-        else job.reject(new Error(m.error ?? 'render failed'));
+        const value = m.bytes ?? m.result;
+        if (value) job.resolve(value as never);
+        else job.reject(new Error(m.error ?? 'worker failed'));
       });
       worker.on('error', (error) => {
         for (const job of this.pending.values()) job.reject(error);
@@ -48,6 +51,14 @@ class PngPool {
     return new Promise((resolve, reject) => {
       this.pending.set(seq, { resolve, reject });
       (this.workers[seq % this.workers.length] as Worker).postMessage(message);
+    });
+  };
+
+  run = <J extends PackJob>(job: J): Promise<PackJobResult<J['kind']>> => {
+    const seq = this.seq++;
+    return new Promise((resolve, reject) => {
+      this.pending.set(seq, { resolve, reject });
+      (this.workers[seq % this.workers.length] as Worker).postMessage({ seq, job });
     });
   };
 
@@ -107,13 +118,15 @@ function benchInput(): PackInput {
 async function main(): Promise<void> {
   let peakRss = process.memoryUsage().rss;
   const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 20);
-  const pool = new PngPool(Math.max(1, availableParallelism()));
+  const pool = new PackPool(Math.max(1, availableParallelism()));
   await pool.warm();
   const dir = await mkdtemp(join(tmpdir(), 'bench-pack-'));
   try {
     const start = performance.now();
+    const cpuStart = process.cpuUsage();
     const pack = await buildPack(benchInput(), {
       renderPng: pool.render,
+      runJob: pool.run,
       sha256Hex: (bytes) => createHash('sha256').update(bytes).digest('hex'),
       onProgress: () => (peakRss = Math.max(peakRss, process.memoryUsage().rss)),
     });
@@ -128,6 +141,7 @@ async function main(): Promise<void> {
     );
     await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
     const end = performance.now();
+    const cpu = process.cpuUsage(cpuStart);
     const seconds = (end - start) / 1000;
     const layout = pack.manifest.space.layoutStimuli;
     const breakdown = Object.fromEntries([...Object.entries(pack.timings), ['zip', end - zipStart]].map(([k, v]) => [k, Math.round(v as number)]));
@@ -143,6 +157,9 @@ async function main(): Promise<void> {
         peak_rss_mb: Math.round(peakRss / 2 ** 20),
         zip_mb: Number((zipBytes / 2 ** 20).toFixed(1)),
         workers: availableParallelism(),
+        // CPU of every thread of this process (main, workers, libuv's sharp threads), seconds; load-independent-ish.
+        cpu_s: Number(((cpu.user + cpu.system) / 1e6).toFixed(2)),
+        load_average_1m: Number((loadavg()[0] as number).toFixed(2)),
         breakdown,
       }),
     );

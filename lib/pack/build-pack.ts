@@ -6,23 +6,24 @@ import { drawnSize } from '../render/drawn-size';
 import { frameStimuli } from '../render/frame-stimuli';
 import { RenderError } from '../render/render-error';
 import { resolveRender } from '../render/resolve-render';
-import { stimulusSvg } from '../render/stimulus-svg';
+import { stimulusSvgPair } from '../render/stimulus-svg';
 import { SpaceError } from '../space/space-error';
 import { descriptorArea } from '../shape/descriptor-area';
-import { descriptorPerimeter } from '../shape/descriptor-perimeter';
 import { checkPackInput } from './check-pack-input';
 import { MANIFEST_SCHEMA } from './manifest-schema';
-import { modelRdms } from './model-rdms';
+import { computeModelRdms } from './model-rdms';
+import { runPackJob, type PackJobRunner } from './pack-job';
 import { nonApprovedNotice } from './non-approved-notice';
 import { PackError } from './pack-error';
 import { PACK_LIMITS, PRODUCT_NAME } from './pack-limits';
 import { packReadme } from './pack-readme';
 import { packStimuli } from './pack-stimuli';
-import { rdmTsv } from './rdm-tsv';
+import { rdmTsvBytes } from './rdm-tsv-bytes';
 import { sha256Sums } from './sha256-sums';
 import { stimuliCsv } from './stimuli-csv';
 import { synthesizeStimuli } from './synthesize-stimuli';
 import { trialListCsv } from './trial-list-csv';
+import type { PremadeZip } from './zip-entries';
 import { zipPack } from './zip-pack';
 import type { BuiltPack, ManifestRdm, ManifestStimulus, PackBackends, PackFile, PackInput, PackManifest, PackStage } from './types';
 
@@ -38,6 +39,14 @@ const RDM_FILES: readonly Omit<ManifestRdm, 'path'>[] = [
 const encoder = new TextEncoder();
 const byPath = (p: { path: string }, q: { path: string }): number => (p.path < q.path ? -1 : p.path > q.path ? 1 : 0);
 const defaultSha256Hex = (bytes: Uint8Array): string => toHex(sha256(bytes));
+/** Without a `runJob` back end, each job runs here when it is handed out. */
+const runHere: PackJobRunner = (job) => runPackJob(job);
+
+/** Splits 0 … n into at most `parts` consecutive, non-empty, about equal ranges. */
+function splitEvenly(n: number, parts: number): { from: number; to: number }[] {
+  const count = Math.max(1, Math.min(parts, n));
+  return Array.from({ length: count }, (_, b) => ({ from: Math.round((n * b) / count), to: Math.round((n * (b + 1)) / count) }));
+}
 
 /** Stage: refuse unusable input with every reason, mapping the cores' own errors onto `PackError`. */
 function checked<T>(work: () => T): T {
@@ -58,16 +67,19 @@ function checked<T>(work: () => T): T {
  * Builds a stimulus pack from plain data, deterministically: the same input gives the same manifest and the same
  * zip bytes. Pipeline: check the input (`checkPackInput`, `resolveRender`) → generate the layout stimuli and the
  * boundaries' prototypes (`packStimuli`) → synthesise and validate every outline at `render.samples` points →
- * one frame for all (`frameStimuli`) → SVG per stimulus → hand every pixel-unit SVG to `backends.renderPng` at
- * once → model RDMs of the layout stimuli while the PNGs render → categories and signed distances
- * (`classifyStimuli`), metrics, manifest, tables, README, schema, SHA256SUMS. Every file is held once; the zip
- * is streamed by `writeZip`. Raises `PackError` (`invalid-input`, `invalid-space`, `render-failed`). Pure apart
- * from the back ends it is given; nothing here touches Node.
+ * one frame for all (`frameStimuli`) → both SVGs per stimulus (`stimulusSvgPair`) → hand every pixel-unit SVG
+ * to `backends.renderPng` at once → hand out the pure heavy work as `PackJob`s to `backends.runJob` (contour and
+ * silhouette RDM rows of the layout stimuli, perimeters; default: run here) → meanwhile categories and signed
+ * distances (`classifyStimuli`), areas, drawn sizes and the design RDM here → the RDM tables as jobs → metrics,
+ * manifest, tables, README, schema, SHA256SUMS. Every file is held once; the zip is streamed by `writeZip`.
+ * Raises `PackError` (`invalid-input`, `invalid-space`, `render-failed`). Pure apart from the back ends it is
+ * given; nothing here touches Node.
  */
 export async function buildPack(input: PackInput, backends: PackBackends): Promise<BuiltPack> {
   const timings: Record<PackStage, number> = { check: 0, synthesize: 0, svg: 0, rdm: 0, png: 0, tables: 0, hash: 0 };
   const hashHex = backends.sha256Hex ?? defaultSha256Hex;
   const progress = backends.onProgress;
+  const run = backends.runJob ?? runHere;
   const time = <T>(stage: PackStage, work: () => T): T => {
     const start = performance.now();
     const hashBefore = timings.hash;
@@ -103,13 +115,20 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
   progress?.('synthesize', 1);
 
   // Phase 3: SVGs; then every PNG handed to the back end before the RDMs, so they render meanwhile.
-  const svgFiles = time('svg', () => stimuli.map((s, i) => hashed(`stimuli/svg/${s.id}.svg`, encoder.encode(stimulusSvg(contours[i]!, frame, render)))));
+  const pixelSvgs: string[] = [];
+  const svgFiles = time('svg', () =>
+    stimuli.map((s, i) => {
+      const { physical, pixels } = stimulusSvgPair(contours[i]!, frame, render);
+      pixelSvgs.push(pixels);
+      return hashed(`stimuli/svg/${s.id}.svg`, encoder.encode(physical));
+    }),
+  );
   progress?.('svg', 1);
   let rendered = 0;
   const pngAll = Promise.all(
     stimuli.map((s, i) =>
       backends
-        .renderPng({ id: s.id, svg: stimulusSvg(contours[i]!, frame, render, { units: 'pixels' }), sizePx: frame.canvasPx, channels: render.pngChannels })
+        .renderPng({ id: s.id, svg: pixelSvgs[i]!, sizePx: frame.canvasPx, channels: render.pngChannels })
         .then((bytes) => {
           rendered++;
           progress?.('png', rendered / stimuli.length);
@@ -118,16 +137,46 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
     ),
   );
 
-  // Phase 4: model RDMs of the layout stimuli.
-  const layoutCount = stimuli.filter((s) => s.kind === 'layout').length;
-  const rdmFiles = time('rdm', () => {
-    const rdms = modelRdms(stimuli.slice(0, layoutCount), contours.slice(0, layoutCount), (f) => progress?.('rdm', f));
-    const layoutIds = ids.slice(0, layoutCount);
-    return RDM_FILES.map((r) => ({ ...r, path: `rdm/${r.name}.tsv`, text: rdmTsv(rdms[r.name], layoutIds) }));
-  });
-  const rdmPackFiles = rdmFiles.map((r) => hashed(r.path, encoder.encode(r.text)));
+  // Awaited below; marked handled now, so a failed render while the jobs run is not an unhandled rejection.
+  pngAll.catch(() => undefined);
 
-  // Phase 5: the PNGs.
+  // Phase 4: the heavy pure work as jobs, handed out after the PNGs so they run meanwhile: the contour and
+  // silhouette RDMs of the layout stimuli in blocks of rows, and the perimeters.
+  const layoutCount = stimuli.filter((s) => s.kind === 'layout').length;
+  const layoutIds = ids.slice(0, layoutCount);
+  const rdmStart = performance.now();
+  const rdmsReady = computeModelRdms(stimuli.slice(0, layoutCount), contours.slice(0, layoutCount), run, (f) => progress?.('rdm', f));
+  const perimetersReady = Promise.all(
+    splitEvenly(stimuli.length, PACK_LIMITS.perimeterBlocks).map(({ from, to }) => run({ kind: 'perimeters', descriptors: stimuli.slice(from, to).map((s) => s.descriptor) })),
+  );
+  perimetersReady.catch(() => undefined);
+  // The SVGs' DEFLATE work, ahead of the zip: runs of consecutive paths, each its own zip (zipEntries).
+  const date = new Date(Date.parse(input.edition.createdAt));
+  const sortedSvgs = [...svgFiles].sort(byPath);
+  const premade: Promise<PremadeZip>[] = splitEvenly(sortedSvgs.length, PACK_LIMITS.svgZipBlocks).map(({ from, to }) =>
+    run({ kind: 'zip-entries', files: sortedSvgs.slice(from, to).map(({ path, data, compression }) => ({ path, data, compression })), dateMs: date.getTime() }),
+  );
+  timings.rdm += performance.now() - rdmStart;
+
+  // Phase 5: what needs no job result, here meanwhile: categories, areas, drawn sizes.
+  const measured = time('tables', () => ({
+    classification: checked(() => classifyStimuli(stimuli, input.boundaries, input.definition.extent)),
+    areas: stimuli.map((s) => Math.abs(descriptorArea(s.descriptor))),
+    sizes: contours.map((c) => drawnSize(c, frame, input.profile)),
+  }));
+
+  // Phase 6: the RDM tables, formatted as jobs too.
+  const rdmWait = performance.now();
+  const rdms = await rdmsReady;
+  const rdmTexts = await Promise.all(RDM_FILES.map((r) => rdmTsvBytes(rdms[r.name], layoutIds, run)));
+  timings.rdm += performance.now() - rdmWait;
+  const rdmFiles = RDM_FILES.map((r) => ({ ...r, path: `rdm/${r.name}.tsv` }));
+  const rdmPackFiles = rdmFiles.map((r, i) => hashed(r.path, rdmTexts[i]!));
+  for (const { path, data, compression } of rdmPackFiles) premade.push(run({ kind: 'zip-entries', files: [{ path, data, compression }], dateMs: date.getTime() }));
+  for (const p of premade) p.catch(() => undefined);
+  const perimeters = (await perimetersReady).flatMap((block) => Array.from(block));
+
+  // Phase 7: the PNGs.
   const pngWait = performance.now();
   let pngBytes: Uint8Array[];
   try {
@@ -139,13 +188,13 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
   const pngFiles = stimuli.map((s, i) => hashed(`stimuli/png/${s.id}.png`, pngBytes[i]!, 'STORE'));
   pngBytes = [];
 
-  // Phase 6: manifest, tables, README, checksums.
+  // Phase 8: manifest, tables, README, checksums.
   const built = time('tables', () => {
-    const classification = checked(() => classifyStimuli(stimuli, input.boundaries, input.definition.extent));
+    const { classification, areas, sizes } = measured;
     const manifestStimuli = stimuli.map((s, i): ManifestStimulus => {
-      const area = Math.abs(descriptorArea(s.descriptor));
-      const perimeter = descriptorPerimeter(s.descriptor);
-      const size = drawnSize(contours[i]!, frame, input.profile);
+      const area = areas[i]!;
+      const perimeter = perimeters[i]!;
+      const size = sizes[i]!;
       const ref = (f: PackFile) => ({ path: f.path, sha256: f.sha256, bytes: f.bytes });
       return {
         id: s.id,
@@ -226,11 +275,10 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
   });
   progress?.('tables', 1);
 
-  const date = new Date(Date.parse(input.edition.createdAt));
   return {
     manifest: built.manifest,
     files: built.files,
     timings,
-    writeZip: (sink) => zipPack(built.files, date, sink),
+    writeZip: async (sink) => zipPack(built.files, date, sink, await Promise.all(premade)),
   };
 }

@@ -6,6 +6,11 @@
  *   where the zip stage dominated at level 6. PNGs are stored, being deflated already.
  * - Zip dates hold 1980…2107 (MS-DOS date fields).
  * - `silhouetteResolution` 256: the silhouette RDM's raster, `lib/space`'s default, so pack and audit agree.
+ * - `rdmBlocks` 6, `silhouetteBlocks` 2, `tsvBlocks` 3, `perimeterBlocks` 2: how many `PackJob`s the contour
+ *   RDM, the silhouette RDM, each RDM table and the perimeters are split into, so two or more worker threads
+ *   share them while the PNGs render. Silhouette blocks are few: each carries and rasterises every contour from
+ *   its first row on (six blocks rasterised each contour ~3.5 times and copied ~30 MB of outlines).
+ * - `svgZipBlocks` 2: the SVGs are compressed ahead in this many zips (`zipEntries`), one per RDM table too.
  */
 export const PACK_LIMITS = {
   schemaVersion: 1,
@@ -13,6 +18,11 @@ export const PACK_LIMITS = {
   minZipYear: 1980,
   maxZipYear: 2107,
   silhouetteResolution: 256,
+  rdmBlocks: 6,
+  silhouetteBlocks: 2,
+  tsvBlocks: 3,
+  perimeterBlocks: 2,
+  svgZipBlocks: 2,
 } as const;
 
 /** The product's name as it appears in manifests. */

@@ -2,6 +2,7 @@ import type { Boundary } from '../boundary/types';
 import type { ContrastFigures, DerivedSizes, DisplayProfile, PngChannels, RenderIssue, RenderOptions } from '../render/types';
 import type { ShapeDescriptor } from '../shape/types';
 import type { SpaceDefinition } from '../space/types';
+import type { PackJobRunner } from './pack-job';
 
 /** Edition states, as stored (Draft → In review → Approved | Returned). */
 export type EditionState = 'draft' | 'in_review' | 'approved' | 'returned';
@@ -153,6 +154,12 @@ export interface PackBackends {
   /** Lowercase hex SHA-256; default `lib/edition`'s pure `sha256` (the server may pass node:crypto's). */
   readonly sha256Hex?: (bytes: Uint8Array) => string;
   readonly onProgress?: (stage: PackStage, fraction: number) => void;
+  /**
+   * Runs a pure `PackJob` (RDM rows, RDM table lines, perimeters) and resolves with `runPackJob(job)`'s result,
+   * e.g. in a worker thread; the jobs are handed out together, after the PNG requests, so a pool works on both
+   * at once. Default: each job runs in the calling thread. Results do not depend on where a job runs.
+   */
+  readonly runJob?: PackJobRunner;
 }
 
 /** One file of a built pack. */

@@ -45,4 +45,4 @@ export { contourMaxExtent } from './contour-max-extent';
 export { stimulusMeasure } from './stimulus-measure';
 export { frameStimuli } from './frame-stimuli';
 export { drawnSize } from './drawn-size';
-export { stimulusSvg, type StimulusSvgOptions } from './stimulus-svg';
+export { stimulusSvg, stimulusSvgPair, type StimulusSvgOptions } from './stimulus-svg';

@@ -21,6 +21,7 @@ export type {
   RadiusMap,
   RayGrowth,
   Rdm,
+  RdmRows,
   SpaceAxis,
   SpaceCheck,
   SpaceDefinition,
@@ -71,6 +72,11 @@ export { designRdm } from './design-rdm';
 export { contourRdm } from './contour-rdm';
 export { spectrumRdm } from './spectrum-rdm';
 export { silhouetteRdm, DEFAULT_SILHOUETTE_RESOLUTION, type SilhouetteRdmOptions } from './silhouette-rdm';
+export { silhouetteExtent } from './silhouette-extent';
+export { silhouetteRdmRows } from './silhouette-rdm-rows';
+export { spectrumRdmRows } from './spectrum-rdm-rows';
+export { splitRdmRows } from './split-rdm-rows';
+export { rdmFromRows } from './rdm-from-rows';
 export { rdmEntry } from './rdm-entry';
 export { condenseRdm } from './condense-rdm';
 

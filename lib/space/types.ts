@@ -197,6 +197,18 @@ export interface Rdm {
 }
 
 /**
+ * Rows `from` … `to − 1` of an RDM's upper triangle: the entries (i, j), j > i, row by row (row i holds
+ * size − 1 − i values), so blocks can be computed apart — in web or worker threads — and joined by
+ * `rdmFromRows`. Plain data, like `Rdm`.
+ */
+export interface RdmRows {
+  readonly size: number;
+  readonly from: number;
+  readonly to: number;
+  readonly values: Float64Array;
+}
+
+/**
  * The harmonics of a closed curve z(t) = Σ c_k e^{ikt} without c_0 (translation), kept where |c_k| is above
  * rounding noise, sorted by k. `energy` = Σ|c_k|², the mean squared distance of the curve from its mean point.
  */

@@ -7,7 +7,7 @@ import Ajv2020 from 'ajv/dist/2020';
 import { PNG } from 'pngjs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import yauzl from 'yauzl';
-import { buildPack, PackError, type BuiltPack, type PackInput, type PackManifest } from '@/lib/pack';
+import { buildPack, PackError, runPackJob, type BuiltPack, type PackInput, type PackJobRunner, type PackManifest } from '@/lib/pack';
 import { renderPng } from '@/lib/render/render-png';
 
 const INPUT: PackInput = {
@@ -209,6 +209,22 @@ describe('stimulus pack zip', () => {
     // The pure default hash gives the same pack.
     const pure = await zipBytes(await buildPack(INPUT, { renderPng }));
     expect(sha(pure)).toBe(sha(zip));
+  });
+
+  it('is byte-identical when its jobs run elsewhere and finish in any order', async () => {
+    // A runJob back end that copies each job as postMessage would, and resolves them in reverse order of hand-out.
+    const queued: (() => void)[] = [];
+    let handedOut = 0;
+    const runJob: PackJobRunner = (job) => {
+      handedOut++;
+      return new Promise((resolve, reject) => {
+        queued.push(() => void runPackJob(structuredClone(job)).then(resolve, reject));
+        queueMicrotask(() => setTimeout(() => queued.splice(0).reverse().forEach((f) => f()), 0));
+      });
+    };
+    const elsewhere = await zipBytes(await buildPack(INPUT, { ...backends, runJob }));
+    expect(handedOut).toBeGreaterThan(5);
+    expect(sha(elsewhere)).toBe(sha(zip));
   });
 
   it('a pack from an edition that is not approved says so at the top of its manifest', async () => {

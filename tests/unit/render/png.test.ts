@@ -1,7 +1,8 @@
 import { PNG } from 'pngjs';
 import { describe, expect, it } from 'vitest';
-import { frameStimuli, resolveRender, stimulusSvg, type DisplayProfile, type RenderOptions } from '@/lib/render';
-import { renderPng } from '@/lib/render/render-png';
+import { frameStimuli, resolveRender, stimulusSvg, stimulusSvgPair, type DisplayProfile, type RenderOptions } from '@/lib/render';
+import sharp from 'sharp';
+import { PNG_COMPRESSION_LEVEL, renderPng } from '@/lib/render/render-png';
 import { synthesizeContour, type RadialDescriptor } from '@/lib/shape';
 
 // 40 px/cm at 57.294325 cm: 1 cm subtends exactly 1° there (REFERENCES.md), so sizes are easy to read.
@@ -97,6 +98,21 @@ describe('PNG rendering (decoded with pngjs)', () => {
     expect(Math.abs(coveredPixels(png) - expected) / expected).toBeLessThan(0.01);
   });
 
+  it('a grey PNG is byte for byte what libvips\'s sRGB → b-w conversion of the drawing gives', async () => {
+    // renderPng takes the red band for grey images; the plain route converts the colourspace.
+    for (const over of [{ fill: 40, background: 200 }, { fill: 0, background: 128, antiAlias: false }, { fill: 255, background: 0, style: 'outline' as const, strokeArcmin: 6 }]) {
+      const { bytes, render, frame } = await draw(rf3, over);
+      const contour = synthesizeContour(rf3, render.options.samples);
+      const svg = stimulusSvg(contour, frame, render, { units: 'pixels' });
+      const plain = await sharp(Buffer.from(svg, 'utf8'))
+        .removeAlpha()
+        .toColourspace('b-w')
+        .png({ compressionLevel: PNG_COMPRESSION_LEVEL, adaptiveFiltering: false, palette: false })
+        .toBuffer();
+      expect(Buffer.from(bytes).equals(plain)).toBe(true);
+    }
+  });
+
   it('renders the same bytes twice', async () => {
     const a = await draw(rf3);
     const b = await draw(rf3);
@@ -116,6 +132,18 @@ describe('SVG documents', () => {
     expect(svg).not.toContain('<rect');
     expect(svg).toContain('fill="#000000"');
     expect(stimulusSvg(contour, frame, render, { units: 'pixels' })).toContain(`width="${frame.canvasPx}" height="${frame.canvasPx}"`);
+  });
+
+  it('stimulusSvgPair gives exactly the physical and the pixel documents of stimulusSvg', () => {
+    for (const over of [{}, { antiAlias: false, transparent: true }, { style: 'outline' as const, strokeArcmin: 6 }]) {
+      const render = resolveRender(PROFILE, options(over));
+      const contour = synthesizeContour({ family: 'radial', baseRadius: 1, terms: [{ k: 5, amplitude: 0.2, phase: 1 }] }, 97);
+      const frame = frameStimuli([contour], render);
+      const pair = stimulusSvgPair(contour, frame, render);
+      expect(pair.physical).toBe(stimulusSvg(contour, frame, render));
+      expect(pair.pixels).toBe(stimulusSvg(contour, frame, render, { units: 'pixels' }));
+      expect(pair.physical).not.toBe(pair.pixels);
+    }
   });
 
   it('refuses stimuli that reach past the canvas', () => {
