@@ -37,3 +37,17 @@ export { sha256Sums } from './sha256-sums';
 export { MANIFEST_SCHEMA } from './manifest-schema';
 export { zipPack } from './zip-pack';
 export { buildPack } from './build-pack';
+export type {
+  ManifestSchemaIssue,
+  PackCheckAltered,
+  PackCheckEditionClaim,
+  PackCheckMode,
+  PackCheckOptions,
+  PackCheckProblem,
+  PackCheckProblemCode,
+  PackCheckReport,
+  PackCheckVerdict,
+} from './check-pack-types';
+export { checkPack, checkPackManifest, MANIFEST_PATH, SUMS_PATH, MAX_REPORTED_PROBLEMS } from './check-pack';
+export { checkPackManifestSchema, MAX_SCHEMA_ISSUES, SUPPORTED_SCHEMA_KEYWORDS } from './check-pack-schema';
+export { parsePackSums, type ParsedSums, type SumsLine } from './check-pack-sums';
