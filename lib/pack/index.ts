@@ -39,6 +39,7 @@ export type {
   ManifestSchemaIssue,
   PackCheckAltered,
   PackCheckEditionClaim,
+  PackCheckEntry,
   PackCheckMode,
   PackCheckOptions,
   PackCheckProblem,

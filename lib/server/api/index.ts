@@ -7,3 +7,4 @@ export * from './seed-shapes';
 export * from './shape-spaces';
 export * from './editions';
 export * from './display-profiles';
+export * from './pack-checks';
