@@ -8,6 +8,8 @@ const nextConfig = {
   // `npm test` type-checks the whole tree (tests included) as its first tier; the build need not do it again.
   typescript: { ignoreBuildErrors: true },
   outputFileTracingRoot: import.meta.dirname,
+  // With proxy.ts in place, Next buffers only the first 10 MB of a request body; the pack check takes up to 600 MiB.
+  experimental: { proxyClientMaxBodySize: '600mb' },
   // Headers every response carries, static files included; the CSP with its nonce is set per request in proxy.ts.
   async headers() {
     const headers = [

@@ -76,6 +76,20 @@ export async function getEdition(db: DbHandle, labId: string, spaceId: string, n
   return row;
 }
 
+/**
+ * The lab's edition with this content hash, or undefined. Re-freezing an unchanged space repeats a hash, so when
+ * several editions share it the one numbered `preferNumber` wins, then the newest.
+ */
+export function findEditionByHash(db: DbHandle, labId: string, hash: string, preferNumber?: number): Promise<EditionListRow | undefined> {
+  return withJoins(db)
+    .where('editions.lab_id', '=', labId)
+    .where('editions.content_hash', '=', hash)
+    .orderBy((eb) => eb.case().when('editions.number', '=', preferNumber ?? 0).then(0).else(1).end())
+    .orderBy('editions.created_at', 'desc')
+    .limit(1)
+    .executeTakeFirst();
+}
+
 export async function getEditionSnapshot(db: DbHandle, editionId: string): Promise<unknown> {
   const row = await db.selectFrom('editions').select('snapshot').where('id', '=', editionId).executeTakeFirstOrThrow();
   return row.snapshot;

@@ -97,6 +97,12 @@ export interface PackCheckReport {
   readonly problemsLeftOff: number;
 }
 
+/**
+ * One file of the pack as the check receives it: its bytes, or (so a server need not hold a large pack in memory)
+ * its SHA-256 and size computed while it was read. `manifest.json` and `SHA256SUMS` must come with their bytes.
+ */
+export type PackCheckEntry = Uint8Array | { readonly sha256: string; readonly size: number; readonly data?: Uint8Array };
+
 /** Options of the pack check. */
 export interface PackCheckOptions {
   /** Lowercase hex SHA-256; default `lib/edition`'s pure `sha256` (the server passes node:crypto's, which is faster). */

@@ -5,6 +5,7 @@ import { parsePackSums, type ParsedSums } from './check-pack-sums';
 import type {
   PackCheckAltered,
   PackCheckEditionClaim,
+  PackCheckEntry,
   PackCheckMode,
   PackCheckOptions,
   PackCheckProblem,
@@ -40,6 +41,8 @@ const SEVERITY: readonly PackCheckProblemCode[] = [
   'sums-duplicate',
   'extra',
 ];
+
+const bytesOf = (entry: PackCheckEntry | undefined): Uint8Array | undefined => (entry === undefined || entry instanceof Uint8Array ? entry : entry.data);
 
 const byPath = (a: string, b: string): number => (a < b ? -1 : a > b ? 1 : 0);
 const defaultSha256Hex = (bytes: Uint8Array): string => toHex(sha256(bytes));
@@ -102,7 +105,7 @@ function editionClaim(manifest: unknown): PackCheckEditionClaim | null {
 }
 
 /** Stage: find the pack's root: the top of the zip, or the one folder an unpacked pack was zipped up in. */
-function packRoot(files: ReadonlyMap<string, Uint8Array>): { folder: string | null; files: ReadonlyMap<string, Uint8Array> } {
+function packRoot(files: ReadonlyMap<string, PackCheckEntry>): { folder: string | null; files: ReadonlyMap<string, PackCheckEntry> } {
   if (files.has(SUMS_PATH) || files.has(MANIFEST_PATH)) return { folder: null, files };
   const names = [...files.keys()];
   const first = names[0]?.split('/')[0];
@@ -148,18 +151,19 @@ function listProblems(sums: ParsedSums | null, manifest: ReadManifest, mode: Pac
 }
 
 /** Stage: hash every listed file that is present and compare it with both lists. */
-function fileFindings(files: ReadonlyMap<string, Uint8Array>, sums: ParsedSums | null, manifest: ReadManifest, hashHex: (b: Uint8Array) => string, out: Collected): void {
+function fileFindings(files: ReadonlyMap<string, PackCheckEntry>, sums: ParsedSums | null, manifest: ReadManifest, hashHex: (b: Uint8Array) => string, out: Collected): void {
   const sumsByPath = new Map((sums?.entries ?? []).map((e) => [e.path, e.sha256]));
   const listed = new Set<string>([...sumsByPath.keys(), ...manifest.refs.keys()]);
   for (const path of [...listed].sort(byPath)) {
-    const data = files.get(path);
-    if (data === undefined) {
+    const entry = files.get(path);
+    if (entry === undefined) {
       out.missing.push(path);
       out.problems.push({ code: 'missing', path, message: `${path} is listed but not in the pack.` });
       continue;
     }
     out.checked++;
-    const actual = hashHex(data);
+    const actual = entry instanceof Uint8Array ? hashHex(entry) : entry.sha256.toLowerCase();
+    const size = entry instanceof Uint8Array ? entry.length : entry.size;
     const fromSums = sumsByPath.get(path);
     const ref = manifest.refs.get(path);
     const expected = [fromSums, ref?.sha256].find((h) => h !== undefined && h !== actual);
@@ -172,8 +176,8 @@ function fileFindings(files: ReadonlyMap<string, Uint8Array>, sums: ParsedSums |
       continue;
     }
     out.intact++;
-    if (ref && ref.bytes !== null && ref.bytes !== data.length) {
-      out.problems.push({ code: 'size-differs', path, message: `The manifest gives ${path} as ${ref.bytes} bytes; it has ${data.length}.` });
+    if (ref && ref.bytes !== null && ref.bytes !== size) {
+      out.problems.push({ code: 'size-differs', path, message: `The manifest gives ${path} as ${ref.bytes} bytes; it has ${size}.` });
     }
   }
   for (const path of [...files.keys()].sort(byPath)) {
@@ -246,21 +250,21 @@ const emptyCollected = (): Collected => ({ altered: [], missing: [], extra: [], 
  * Checks a whole stimulus pack against its own lists: every path in `SHA256SUMS` (GNU coreutils format) and in
  * the manifest's file lists is hashed (SHA-256, FIPS 180-4) and compared; listed files absent from the pack are
  * missing, files listed nowhere are extra, and `manifest.json` is checked against its `SHA256SUMS` line and
- * against `MANIFEST_SCHEMA`. `files` maps `/`-separated paths to bytes (no folder entries); a pack zipped again
- * inside one folder is found there. Pure: hashing may come in as `options.sha256Hex`.
+ * against `MANIFEST_SCHEMA`. `files` maps `/`-separated paths to bytes, or to a hash and size already computed
+ * (no folder entries); a pack zipped again inside one folder is found there. Pure: hashing may come in as `options.sha256Hex`.
  */
-export function checkPack(files: ReadonlyMap<string, Uint8Array>, options: PackCheckOptions = {}): PackCheckReport {
+export function checkPack(files: ReadonlyMap<string, PackCheckEntry>, options: PackCheckOptions = {}): PackCheckReport {
   const hashHex = options.sha256Hex ?? defaultSha256Hex;
   const root = packRoot(files);
-  const sumsBytes = root.files.get(SUMS_PATH);
+  const sumsBytes = bytesOf(root.files.get(SUMS_PATH));
   const sums = sumsBytes === undefined ? null : parsePackSums(new TextDecoder().decode(sumsBytes));
-  const manifestBytes = root.files.get(MANIFEST_PATH);
+  const manifestBytes = bytesOf(root.files.get(MANIFEST_PATH));
   const manifest = readManifest(manifestBytes);
   const c = emptyCollected();
   listProblems(sums, manifest, 'zip', c.problems);
   fileFindings(root.files, sums, manifest, hashHex, c);
   const manifestLine = sums?.entries.find((e) => e.path === MANIFEST_PATH);
-  const manifestHashMatches = manifestBytes && manifestLine ? hashHex(manifestBytes) === manifestLine.sha256 : null;
+  const manifestHashMatches = manifestBytes && manifestLine ? !c.altered.some((a) => a.path === MANIFEST_PATH) : null;
   return report('zip', sums, manifest, manifestHashMatches, c, root.folder);
 }
 

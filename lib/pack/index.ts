@@ -41,6 +41,7 @@ export type {
   ManifestSchemaIssue,
   PackCheckAltered,
   PackCheckEditionClaim,
+  PackCheckEntry,
   PackCheckMode,
   PackCheckOptions,
   PackCheckProblem,

@@ -38,6 +38,8 @@ export interface RouteContext<P, Q, B> {
   labActor: () => LabActor;
   /** The raw body, for routes that take a file as text (`textBody`). */
   text: string;
+  /** The file, for routes that take one as bytes (`binaryBody`) when it came in one of those types; else undefined. */
+  bytes: Uint8Array | undefined;
 }
 
 export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z.ZodType, R extends z.ZodType> {
@@ -58,6 +60,12 @@ export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z
   maxBodyBytes?: number;
   /** The route takes a file as text of these content types instead of JSON (e.g. an SVG upload). */
   textBody?: { contentTypes: readonly string[] };
+  /**
+   * The route also takes a file as raw bytes of these content types (e.g. a zip), read with a hard cap of
+   * `maxBytes` before anything parses it. Such a request reaches the handler as `bytes`, with `body` left
+   * unparsed (undefined), so the route's `body` schema must accept undefined; other types are read as JSON.
+   */
+  binaryBody?: { contentTypes: readonly string[]; maxBytes: number };
   /** Returns the JSON body (validated against `response`), or a ready `Response` for downloads and custom statuses. */
   handler: (ctx: RouteContext<z.infer<P>, z.infer<Q>, z.infer<B>>) => Promise<z.input<R> | Response>;
 }
@@ -134,7 +142,33 @@ async function readTextBody(request: Request, maxBytes: number, contentTypes: re
 
 /** Reads a request body as text, stopping with 413 as soon as it passes `maxBytes`. */
 export async function readTextCapped(request: Request, maxBytes: number): Promise<string> {
-  if (!request.body) return '';
+  return new TextDecoder().decode(await readBytesCapped(request, maxBytes));
+}
+
+const contentTypeOf = (request: Request): string => (request.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
+const mebibytes = (bytes: number): string => `${Math.round(bytes / (1024 * 1024))} MiB`;
+
+/** A file sent as raw bytes: refused early by its declared length, cut off at `maxBytes`, and checked complete. */
+async function readBinaryBody(request: Request, maxBytes: number): Promise<Uint8Array> {
+  const declared = Number(request.headers.get('content-length') ?? '0');
+  const tooLarge = () => new AppError('too_large:request', `The file is over ${mebibytes(maxBytes)}.`, { fields: { file: ['Too large'] } });
+  if (declared > maxBytes) throw tooLarge();
+  let bytes: Uint8Array;
+  try {
+    bytes = await readBytesCapped(request, maxBytes);
+  } catch (error) {
+    throw error instanceof AppError && error.kind === 'too_large' ? tooLarge() : error;
+  }
+  // A proxy that buffers bodies may pass on only the first part of a large upload; say so rather than read half a file.
+  if (declared > 0 && bytes.byteLength < declared) {
+    throw validationError('request', `Only ${bytes.byteLength} of the ${declared} bytes sent arrived; the upload was cut short.`, { file: ['Incomplete upload'] });
+  }
+  return bytes;
+}
+
+/** Reads a request body as bytes, stopping with 413 as soon as it passes `maxBytes`. */
+async function readBytesCapped(request: Request, maxBytes: number): Promise<Uint8Array> {
+  if (!request.body) return new Uint8Array(0);
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let total = 0;
@@ -148,7 +182,7 @@ export async function readTextCapped(request: Request, maxBytes: number): Promis
     }
     chunks.push(value);
   }
-  return new TextDecoder().decode(Buffer.concat(chunks));
+  return Buffer.concat(chunks);
 }
 
 /** A problem-details response for any thrown value; unknown errors are logged in full and answered generically. */
@@ -184,11 +218,13 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
       const query = parseWith(route.query ?? EMPTY_OBJECT, Object.fromEntries(url.searchParams), 'query');
       const hasBody = route.method !== 'GET' && route.method !== 'DELETE';
       const maxBytes = route.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES;
-      const text = route.textBody && hasBody ? await readTextBody(request, maxBytes, route.textBody.contentTypes) : '';
-      const rawBody = hasBody && !route.textBody ? await readJsonBody(request, maxBytes) : undefined;
-      const body = route.body ? parseWith(route.body, rawBody ?? {}, 'body') : undefined;
+      const isBinary = hasBody && route.binaryBody !== undefined && route.binaryBody.contentTypes.includes(contentTypeOf(request));
+      const bytes = isBinary ? await readBinaryBody(request, route.binaryBody!.maxBytes) : undefined;
+      const text = route.textBody && hasBody && !isBinary ? await readTextBody(request, maxBytes, route.textBody.contentTypes) : '';
+      const rawBody = hasBody && !route.textBody && !isBinary ? await readJsonBody(request, maxBytes) : undefined;
+      const body = route.body && !isBinary ? parseWith(route.body, rawBody ?? {}, 'body') : undefined;
 
-      const result = await route.handler({ params, query, body, principal, request, labActor: labActorGetter(actor, route.id), text });
+      const result = await route.handler({ params, query, body, principal, request, labActor: labActorGetter(actor, route.id), text, bytes });
       if (result instanceof Response) return result;
       const status = route.successStatus ?? 200;
       if (status === 204) return new Response(null, { status });

@@ -8,3 +8,4 @@ export * from './shape-spaces';
 export * from './editions';
 export * from './display-profiles';
 export * from './packs';
+export * from './pack-checks';
