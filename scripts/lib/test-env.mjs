@@ -9,6 +9,9 @@ export const TEST_PG_PORT = Number(process.env.EPICYCLE_TEST_PG_PORT ?? 54339);
 export const E2E_PORT = Number(process.env.EPICYCLE_E2E_PORT ?? 3100);
 export const TEST_S3_PORT = Number(process.env.EPICYCLE_TEST_S3_PORT ?? 4579);
 /** The e2e pack worker's health port (Playwright waits on it). */
+/** The test mail catcher's SMTP and HTTP ports. */
+export const TEST_SMTP_PORT = Number(process.env.EPICYCLE_TEST_SMTP_PORT ?? 2535);
+export const TEST_MAIL_HTTP_PORT = Number(process.env.EPICYCLE_TEST_MAIL_HTTP_PORT ?? 2590);
 export const E2E_WORKER_HEALTH_PORT = Number(process.env.EPICYCLE_E2E_WORKER_PORT ?? 3199);
 
 /**
@@ -18,7 +21,7 @@ export const E2E_WORKER_HEALTH_PORT = Number(process.env.EPICYCLE_E2E_WORKER_POR
 export async function prepareTestEnvironment({ fresh }) {
   const it = await ensurePostgres({ name: 'test', port: TEST_PG_PORT, database: 'epicycle_it', fresh });
   const e2e = await ensurePostgres({ name: 'test', port: TEST_PG_PORT, database: 'epicycle_e2e' });
-  const mail = await startMailCatcher({ smtpPort: 2535, httpPort: 2590 });
+  const mail = await startMailCatcher({ smtpPort: TEST_SMTP_PORT, httpPort: TEST_MAIL_HTTP_PORT });
   const store = await startS3Fake({ port: TEST_S3_PORT, directory: join(ROOT, '.data', 's3-test'), fresh });
   const appUrl = `http://127.0.0.1:${E2E_PORT}`;
   const env = {
