@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
-import { readFileSync } from 'node:fs';
-import { expect, test } from '@playwright/test';
+import { readFileSync, writeFileSync } from 'node:fs';
+import { expect, test, type Page } from '@playwright/test';
+import JSZip from 'jszip';
 import { SignInPage } from './pages/auth-pages';
 import { expectNoSeriousA11yViolations } from './support/axe';
 import { DEMO_LAB_SLUG as LAB, DEMO_PASSWORD, demoUser } from './support/demo';
@@ -41,7 +42,43 @@ test('an Experimenter makes a pack of the demo edition, watches it build, and do
   await row.getByTestId('pack-manifest-link').click();
   await expect(page.getByTestId('manifest-stimulus-count')).toContainText('83');
   await page.screenshot({ path: 'test-results/screens/pack-manifest.png', fullPage: true });
+
+  // The pack as downloaded checks intact, and is matched to the edition it came from.
+  await page.goto(`/labs/${LAB}/packs`);
+  await page.getByTestId('check-pack-link').click();
+  await expectNoSeriousA11yViolations(page);
+  await checkZip(page, path);
+  await expect(page.getByTestId('check-report')).toHaveAttribute('data-verdict', 'intact');
+  await expect(page.getByTestId('check-edition')).toHaveAttribute('data-status', 'matches');
+  await expect(page.getByTestId('check-count-listed')).not.toHaveText('0');
+  await expect(page.getByTestId('check-count-altered')).toHaveText('0');
+  await expectNoSeriousA11yViolations(page);
+  await page.screenshot({ path: 'test-results/screens/pack-check-intact.png', fullPage: true });
+
+  // One PNG changed by a single byte: the check names it, with both hashes.
+  const zip = await JSZip.loadAsync(readFileSync(path));
+  const victim = Object.keys(zip.files).find((name) => /stimuli\/png\/.+\.png$/.test(name))!;
+  const bytes = await zip.file(victim)!.async('uint8array');
+  bytes[bytes.length - 20] = (bytes[bytes.length - 20]! + 1) % 256;
+  zip.file(victim, bytes);
+  const tampered = path.replace(/\.zip$/, '-tampered.zip');
+  writeFileSync(tampered, await zip.generateAsync({ type: 'nodebuffer', compression: 'DEFLATE' }));
+  await checkZip(page, tampered);
+  await expect(page.getByTestId('check-report')).toHaveAttribute('data-verdict', 'altered');
+  await expect(page.getByTestId('check-count-altered')).toHaveText('1');
+  const alteredRow = page.getByTestId('check-altered').locator('tbody tr');
+  await expect(alteredRow).toHaveCount(1);
+  await expect(alteredRow).toContainText(victim.slice(victim.indexOf('stimuli/')));
+  await expect(alteredRow).toContainText(createHash('sha256').update(bytes).digest('hex'));
+  await page.screenshot({ path: 'test-results/screens/pack-check-altered.png', fullPage: true });
 });
+
+async function checkZip(page: Page, file: string) {
+  await page.getByTestId('check-mode-zip').check();
+  await page.getByTestId('check-zip').setInputFiles(file);
+  await page.getByTestId('check-run').click();
+  await expect(page.getByTestId('check-report')).toBeVisible({ timeout: 60_000 });
+}
 
 test('an expired or broken download link answers 403 with a clear page', async ({ page }) => {
   const r = await page.request.get('/packs/download/not-a-real-token.abc', { maxRedirects: 0 });
