@@ -8,6 +8,8 @@ export const LAB_SECTIONS = [
   { segment: 'packs', label: 'Packs' },
   { segment: 'display-profiles', label: 'Display profiles' },
   { segment: 'settings/members', label: 'Members' },
+  { segment: 'settings/api-tokens', label: 'API tokens' },
+  { segment: 'api', label: 'API' },
   { segment: 'settings/audit', label: 'Audit log' },
 ] as const;
 

@@ -192,6 +192,24 @@ export interface PacksTable {
   updated_at: Generated<Date>;
 }
 
+export type ApiTokenScope = 'read' | 'write';
+
+/** A lab API token: stored as its SHA-256 only, with a scope, an expiry, its last use and its revocation. */
+export interface LabApiTokensTable {
+  id: Generated<string>;
+  lab_id: string;
+  name: string;
+  scope: ApiTokenScope;
+  token_hash: string;
+  token_prefix: string;
+  created_by: string;
+  created_at: Generated<Date>;
+  expires_at: Date;
+  last_used_at: Date | null;
+  revoked_at: Date | null;
+  revoked_by: string | null;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
@@ -207,6 +225,7 @@ export interface Database {
   edition_comments: EditionCommentsTable;
   display_profiles: DisplayProfilesTable;
   packs: PacksTable;
+  lab_api_tokens: LabApiTokensTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -221,3 +240,4 @@ export type EditionRow = Selectable<EditionsTable>;
 export type EditionCommentRow = Selectable<EditionCommentsTable>;
 export type DisplayProfileRow = Selectable<DisplayProfilesTable>;
 export type PackRow = Selectable<PacksTable>;
+export type LabApiTokenRow = Selectable<LabApiTokensTable>;

@@ -1,3 +1,4 @@
+import { sql, type RawBuilder, type SqlBool } from 'kysely';
 import { validationError } from '@/lib/errors';
 
 /** Keyset position: the sort timestamp (ISO) and the id that breaks ties. */
@@ -44,4 +45,13 @@ export function toPage<R extends { id: string }, T>(
     items: kept.map(map),
     nextCursor: hasMore && last ? encodeCursor({ at: sortKey(last).toISOString(), id: last.id }) : null,
   };
+}
+
+/**
+ * The keyset condition "after this cursor" for a list ordered by (`atColumn` desc, `idColumn` desc): a row-value
+ * comparison, `(at, id) < (cursor at, cursor id)`, which PostgreSQL answers from an index on those columns.
+ */
+export function beforeCursor(cursor: string, atColumn: string, idColumn: string): RawBuilder<SqlBool> {
+  const { at, id } = decodeCursor(cursor);
+  return sql<SqlBool>`(${sql.ref(atColumn)}, ${sql.ref(idColumn)}) < (${new Date(at)}, ${id})`;
 }

@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle } from '../client';
 import type { EditionCommentRow, EditionRow, EditionState } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor, decodeCursor } from '../pagination';
 
 /** An edition without its snapshot, with the names of the people on it. */
 export type EditionListRow = Omit<EditionRow, 'snapshot'> & {
@@ -62,6 +62,14 @@ export function listEditions(db: DbHandle, labId: string, spaceId: string, page:
     const { at, id } = decodeCursor(page.cursor);
     q = q.where((eb) => eb.or([eb('editions.created_at', '<', new Date(at)), eb.and([eb('editions.created_at', '=', new Date(at)), eb('editions.id', '<', id)])]));
   }
+  return q.orderBy('editions.created_at', 'desc').orderBy('editions.id', 'desc').limit(page.limit + 1).execute();
+}
+
+/** Every edition of the lab, or those in one state, newest first, keyset-paginated; fetches `limit + 1` rows. */
+export function listLabEditions(db: DbHandle, labId: string, page: { state?: EditionRow['state'] | undefined; cursor?: string | undefined; limit: number }): Promise<EditionListRow[]> {
+  let q = withJoins(db).where('editions.lab_id', '=', labId);
+  if (page.state) q = q.where('editions.state', '=', page.state);
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'editions.created_at', 'editions.id'));
   return q.orderBy('editions.created_at', 'desc').orderBy('editions.id', 'desc').limit(page.limit + 1).execute();
 }
 

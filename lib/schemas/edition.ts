@@ -1,3 +1,4 @@
+import { PageQuerySchema } from './common';
 import { z } from 'zod';
 import { DescriptorSchema } from './descriptor';
 import { EqualizationSchema, SpaceAxisSchema, SpaceLayoutSchema, SpaceNormalizationSchema, SpacePathSchema } from './space';
@@ -120,3 +121,7 @@ export const EditionDiffSchema = z.object({
   unchangedCount: z.number().int(),
 });
 export type EditionDiffValue = z.infer<typeof EditionDiffSchema>;
+
+/** The lab-wide list of editions: every one, or those in one state (e.g. `approved`). */
+export const LabEditionsQuerySchema = PageQuerySchema.extend({ state: EditionStateSchema.optional() });
+export type LabEditionsQuery = z.infer<typeof LabEditionsQuerySchema>;

@@ -35,6 +35,8 @@ const EnvSchema = z.object({
   SIGNIN_LIMIT_PER_EMAIL: z.coerce.number().int().min(1).default(5),
   SIGNIN_LIMIT_PER_IP: z.coerce.number().int().min(1).default(30),
   SIGNIN_LIMIT_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
+  /** Requests a lab API token may make per minute (429 with Retry-After beyond). */
+  API_TOKEN_REQUESTS_PER_MINUTE: z.coerce.number().int().min(1).default(600),
   /** S3-compatible object store for packs; no endpoint means AWS itself (the region's default endpoint). */
   S3_ENDPOINT: z.url({ protocol: /^https?$/ }).optional(),
   S3_REGION: z.string().min(1).default('us-east-1'),

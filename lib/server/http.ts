@@ -196,6 +196,21 @@ export function problemResponse(error: unknown, instance?: string): Response {
   return new Response(JSON.stringify(problem), { status: problem.status, headers });
 }
 
+/** Whether the request's If-None-Match names `etag` (or `*`); weak and strong forms compare alike. */
+export function matchesIfNoneMatch(request: Request, etag: string): boolean {
+  const header = request.headers.get('if-none-match');
+  if (!header) return false;
+  const bare = (tag: string) => tag.trim().replace(/^W\//, '');
+  return header.split(',').some((tag) => tag.trim() === '*' || bare(tag) === bare(etag));
+}
+
+/** A JSON answer with a strong ETag, or 304 with no body when the caller already holds that version. */
+export function jsonWithEtag(request: Request, body: unknown, etag: string): Response {
+  const headers = { etag, 'cache-control': 'private, no-cache' };
+  if (matchesIfNoneMatch(request, etag)) return new Response(null, { status: 304, headers });
+  return Response.json(body, { headers });
+}
+
 type NextRouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
 
 /** The Next route handler for a registered route: parse → authenticate → call the service → map the result. */

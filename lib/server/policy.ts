@@ -45,6 +45,12 @@ export const POLICY = {
 export type PolicyAction = keyof typeof POLICY;
 export const POLICY_ACTIONS = Object.keys(POLICY) as PolicyAction[];
 
+/**
+ * Lab API tokens act as a role of the table: `read` as a Reviewer, `write` as an Experimenter. A token never
+ * does more than the Owner who made it can do now: `canWithToken` asks both the creator's role and the scope's.
+ */
+export const TOKEN_SCOPE_ROLES = { read: 'reviewer', write: 'experimenter' } as const satisfies Record<'read' | 'write', Role>;
+
 /** Whether `role` may take `action`. */
 export function can(role: Role, action: PolicyAction): boolean {
   return (POLICY[action] as readonly Role[]).includes(role);
@@ -52,4 +58,9 @@ export function can(role: Role, action: PolicyAction): boolean {
 
 export function isRole(value: string): value is Role {
   return (ROLES as readonly string[]).includes(value);
+}
+
+/** Whether a token of `scope`, made by a member whose role is now `creatorRole`, may take `action`. */
+export function canWithToken(creatorRole: Role, scope: keyof typeof TOKEN_SCOPE_ROLES, action: PolicyAction): boolean {
+  return can(creatorRole, action) && can(TOKEN_SCOPE_ROLES[scope], action);
 }

@@ -40,6 +40,8 @@ export async function prepareTestEnvironment({ fresh }) {
     E2E_WORKER_HEALTH_PORT: String(E2E_WORKER_HEALTH_PORT),
     // Every test comes from 127.0.0.1, so the per-IP sign-in limit is raised; the per-e-mail one is tested.
     SIGNIN_LIMIT_PER_IP: '10000',
+    // Low enough that a test can spend a token's minute; the suites' own calls stay far below it per token.
+    API_TOKEN_REQUESTS_PER_MINUTE: '150',
     PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1',
     NEXT_TELEMETRY_DISABLED: '1',
   };

@@ -43,19 +43,33 @@ export async function createLabWithEveryRole(db: Db): Promise<TestLab> {
 export async function callRoute(
   // eslint-disable-next-line @typescript-eslint/no-explicit-any -- any route of the registry
   route: RouteSpec<any, any, any, any>,
-  opts: { params?: Record<string, string>; body?: unknown; cookie?: string; query?: Record<string, string> } = {},
+  opts: {
+    params?: Record<string, string>;
+    body?: unknown;
+    cookie?: string;
+    /** A lab API token, sent as `Authorization: Bearer …`. */
+    bearer?: string;
+    query?: Record<string, string>;
+    /** A file body as text with its content type, instead of JSON. */
+    text?: { type: string; content: string };
+    headers?: Record<string, string>;
+  } = {},
 ): Promise<{ status: number; body: unknown; headers: Headers }> {
   let path: string = route.path;
   for (const [k, v] of Object.entries(opts.params ?? {})) path = path.replace(`{${k}}`, encodeURIComponent(v));
   const url = new URL(`http://127.0.0.1${path}`);
   for (const [k, v] of Object.entries(opts.query ?? {})) url.searchParams.set(k, v);
-  const headers: Record<string, string> = {};
+  const headers: Record<string, string> = { ...opts.headers };
   if (opts.cookie) headers.cookie = opts.cookie;
+  if (opts.bearer) headers.authorization = `Bearer ${opts.bearer}`;
   if (opts.body !== undefined) headers['content-type'] = 'application/json';
-  const req = new Request(url, { method: route.method, headers, body: opts.body === undefined ? undefined : JSON.stringify(opts.body) });
+  if (opts.text) headers['content-type'] = opts.text.type;
+  const payload = opts.text ? opts.text.content : opts.body === undefined ? undefined : JSON.stringify(opts.body);
+  const req = new Request(url, { method: route.method, headers, body: payload });
   const res = await toHandler(route)(req, { params: Promise.resolve(opts.params ?? {}) });
   const text = await res.text();
-  return { status: res.status, body: text ? JSON.parse(text) : undefined, headers: res.headers };
+  const isJson = (res.headers.get('content-type') ?? '').includes('json');
+  return { status: res.status, body: text ? (isJson ? JSON.parse(text) : text) : undefined, headers: res.headers };
 }
 
 /** Messages the local mail catcher holds for an address, newest first. */

@@ -13,12 +13,15 @@ import {
   EditionSchema,
   EditionSnapshotSchema,
   FreezeEditionSchema,
+  LabEditionsQuerySchema,
   UpdateCommentSchema,
   UpdateEditionSchema,
 } from '@/lib/schemas/edition';
+import { LabPathSchema } from '@/lib/schemas/account';
 import { ShapeSpaceSchema, SpacePathSchema } from '@/lib/schemas/space';
 import { getDb } from '../db';
 import { defineRoute } from '../http';
+import { paginate } from '../pagination';
 import {
   addComment,
   decideEdition,
@@ -28,6 +31,7 @@ import {
   getEditionSnapshot,
   listComments,
   listEditions,
+  listLabEditions,
   resolveComment,
   submitEdition,
   updateEdition,
@@ -58,6 +62,19 @@ export const listEditionsRoute = defineRoute({
   query: PageQuerySchema,
   response: pageOf(EditionSchema),
   handler: ({ labActor, params, query }) => listEditions(getDb(), labActor(), params.spaceId, query),
+});
+
+export const listLabEditionsRoute = defineRoute({
+  id: 'listLabEditions',
+  method: 'GET',
+  path: '/api/v1/labs/{lab}/editions',
+  summary: "The lab's editions across its spaces, newest first; `state=approved` gives the ones ready for studies and packs",
+  tags: ['editions'],
+  access: { kind: 'lab', action: 'edition:read' },
+  params: LabPathSchema,
+  query: LabEditionsQuerySchema,
+  response: pageOf(EditionSchema),
+  handler: ({ labActor, query }) => listLabEditions(getDb(), labActor(), query),
 });
 
 export const freezeEditionRoute = defineRoute({
@@ -158,8 +175,9 @@ export const listEditionCommentsRoute = defineRoute({
   tags: ['editions'],
   access: { kind: 'lab', action: 'edition:read' },
   params: EditionPathSchema,
-  response: z.object({ items: z.array(EditionCommentSchema), nextCursor: z.null() }),
-  handler: async ({ labActor, params }) => ({ items: await listComments(getDb(), labActor(), params.spaceId, params.number), nextCursor: null }),
+  query: PageQuerySchema,
+  response: pageOf(EditionCommentSchema),
+  handler: async ({ labActor, params, query }) => paginate(await listComments(getDb(), labActor(), params.spaceId, params.number), query, (c) => c.id),
 });
 
 export const addEditionCommentRoute = defineRoute({

@@ -9,3 +9,5 @@ export * from './editions';
 export * from './display-profiles';
 export * from './packs';
 export * from './pack-checks';
+export * from './api-tokens';
+export * from './openapi';

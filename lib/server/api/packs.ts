@@ -5,7 +5,7 @@ import { PageQuerySchema, pageOf } from '@/lib/schemas/common';
 import { EditionPathSchema } from '@/lib/schemas/edition';
 import { CreatePackSchema, DownloadLinkSchema, PackPathSchema, PackSchema } from '@/lib/schemas/pack';
 import { getDb } from '../db';
-import { defineRoute } from '../http';
+import { defineRoute, jsonWithEtag } from '../http';
 import { cancelPack, createPack, getPack, getPackManifest, listPacks, packDownloadLink, retryPack } from '../services/packs';
 
 export const createPackRoute = defineRoute({
@@ -95,5 +95,8 @@ export const getPackManifestRoute = defineRoute({
   access: { kind: 'lab', action: 'pack:read' },
   params: PackPathSchema,
   response: z.record(z.string(), z.unknown()),
-  handler: async ({ labActor, params }) => (await getPackManifest(getDb(), labActor(), params.packId)) as Record<string, unknown>,
+  handler: async ({ labActor, params, request }) => {
+    const { manifest, etag } = await getPackManifest(getDb(), labActor(), params.packId);
+    return jsonWithEtag(request, manifest, etag);
+  },
 });

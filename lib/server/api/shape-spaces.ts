@@ -6,6 +6,7 @@ import { DescriptorSchema } from '@/lib/schemas/descriptor';
 import { CreateSpaceSchema, ShapeSpaceSchema, SpacePathSchema, UpdateSpaceSchema } from '@/lib/schemas/space';
 import { getDb } from '../db';
 import { defineRoute } from '../http';
+import { paginate } from '../pagination';
 import { createShapeSpace, deleteShapeSpace, getShapeSpace, listShapeSpaces, listSpaceStimuli, updateShapeSpace } from '../services/shape-spaces';
 
 export const listShapeSpacesRoute = defineRoute({
@@ -93,6 +94,7 @@ export const listSpaceStimuliRoute = defineRoute({
   tags: ['shape spaces'],
   access: { kind: 'lab', action: 'space:read' },
   params: SpacePathSchema,
-  response: z.object({ items: z.array(StimulusSchema), nextCursor: z.null() }),
-  handler: async ({ labActor, params }) => ({ items: await listSpaceStimuli(getDb(), labActor(), params.spaceId), nextCursor: null }),
+  query: PageQuerySchema,
+  response: pageOf(StimulusSchema),
+  handler: async ({ labActor, params, query }) => paginate(await listSpaceStimuli(getDb(), labActor(), params.spaceId), query, (s) => s.id),
 });

@@ -1,14 +1,27 @@
 import 'server-only';
 import { cookies } from 'next/headers';
+import type { ApiTokenScope } from '@/lib/schemas/api-token';
+import { principalFromBearer, bearerTokenOf } from './api-token-auth';
 import { principalFromSessionToken, readCookie, sessionCookieName } from './session';
 
-/** Who is asking: nobody, or a signed-in user. (Lab API tokens join with their issue.) */
-export type Principal = { kind: 'anonymous' } | { kind: 'user'; userId: string };
+/**
+ * Who is asking: nobody, a signed-in user, or a lab API token (which acts in its own lab only, for the member who
+ * made it, within its scope).
+ */
+export type Principal =
+  | { kind: 'anonymous' }
+  | { kind: 'user'; userId: string }
+  | { kind: 'token'; tokenId: string; labId: string; labSlug: string; scope: ApiTokenScope; userId: string };
 
 export const ANONYMOUS: Principal = { kind: 'anonymous' };
 
-/** Resolves the principal of an API request from its session cookie. */
+/**
+ * Resolves the principal of an API request: a bearer token when the request carries an Authorization header
+ * (a bad one is 401, never a fall-back to the cookie), else its session cookie.
+ */
 export function getRequestPrincipal(request: Request): Promise<Principal> {
+  const bearer = bearerTokenOf(request.headers.get('authorization'));
+  if (bearer !== undefined) return principalFromBearer(bearer);
   return principalFromSessionToken(readCookie(request.headers.get('cookie'), sessionCookieName()));
 }
 

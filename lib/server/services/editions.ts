@@ -10,6 +10,7 @@ import {
   insertEdition,
   listComments as listCommentRows,
   listEditions as listEditionRows,
+  listLabEditions as listLabEditionRows,
   lockSpaceForFreeze,
   setCommentResolved,
   supersedeReturned,
@@ -31,6 +32,7 @@ import {
   type EditionComment,
   type EditionDiffValue,
   type EditionSnapshotValue,
+  type LabEditionsQuery,
 } from '@/lib/schemas/edition';
 import { getEnv } from '../env';
 import { logEvent } from '../log';
@@ -95,6 +97,12 @@ export async function listEditions(db: Db, actor: LabActor, spaceId: string, que
   authorize(actor, 'edition:read');
   await getShapeSpace(db, actor, spaceId);
   return toPage(await listEditionRows(db, actor.labId, spaceId, query), query.limit, (r) => r.created_at, toEdition);
+}
+
+/** The lab's editions across its spaces, newest first; `state` narrows them (scripts ask for `approved`). */
+export async function listLabEditions(db: Db, actor: LabActor, query: LabEditionsQuery): Promise<Page<Edition>> {
+  authorize(actor, 'edition:read');
+  return toPage(await listLabEditionRows(db, actor.labId, query), query.limit, (r) => r.created_at, toEdition);
 }
 
 export async function getEdition(db: Db, actor: LabActor, spaceId: string, number: number): Promise<Edition> {

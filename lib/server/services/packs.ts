@@ -117,11 +117,13 @@ export async function getPack(db: Db, actor: LabActor, id: string): Promise<Pack
   return toPack(await getPackRow(db, actor.labId, id));
 }
 
-export async function getPackManifest(db: Db, actor: LabActor, id: string): Promise<unknown> {
+/** A finished pack's manifest, with an ETag: a built pack never changes, so its zip's SHA-256 names the version. */
+export async function getPackManifest(db: Db, actor: LabActor, id: string): Promise<{ manifest: unknown; etag: string }> {
   authorize(actor, 'pack:read');
   const manifest = await getManifestRow(db, actor.labId, id);
   if (manifest === null) throw conflict('pack', 'This pack is not built yet, so it has no manifest.');
-  return manifest;
+  const row = await getPackRow(db, actor.labId, id);
+  return { manifest, etag: `"manifest-${row.sha256 ?? row.id}"` };
 }
 
 /** Cancels a waiting pack at once; a pack being built stops at its worker's next check, between stimuli. */
@@ -170,7 +172,7 @@ export function packFileName(row: Pick<PackListRow, 'space_name' | 'edition_numb
 }
 
 
-export type DownloadResolution = { ok: true; url: string } | { ok: false; status: 403 | 404 | 409; title: string; message: string };
+export type DownloadResolution = { ok: true; url: string; etag: string } | { ok: false; status: 403 | 404 | 409; title: string; message: string };
 
 /** Checks an app download link and, when it holds, gives a fresh presigned object-store URL to redirect to. */
 export async function resolvePackDownload(db: Db, token: string): Promise<DownloadResolution> {
@@ -183,5 +185,5 @@ export async function resolvePackDownload(db: Db, token: string): Promise<Downlo
   const row = await getPackRow(db, check.grant.labId, check.grant.packId).catch(() => null);
   if (!row) return { ok: false, status: 404, title: 'Pack not found', message: 'This pack no longer exists.' };
   if (row.state !== 'succeeded' || !row.object_key) return { ok: false, status: 409, title: 'Pack not ready', message: 'This pack is not ready to download.' };
-  return { ok: true, url: await presignDownload(row.object_key, packFileName(row)) };
+  return { ok: true, url: await presignDownload(row.object_key, packFileName(row)), etag: `"${row.sha256 ?? row.id}"` };
 }

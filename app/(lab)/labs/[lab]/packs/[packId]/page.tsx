@@ -16,7 +16,7 @@ export default async function PackManifestPage({ params }: { params: Promise<{ l
   const { lab, packId } = await params;
   if (!UUID.test(packId)) notFound();
   const { actor } = await requireLabPageActor(lab, `/labs/${lab}/packs/${packId}`);
-  const [pack, manifest] = await Promise.all([getPack(getDb(), actor, packId), getPackManifest(getDb(), actor, packId) as Promise<PackManifest>]).catch((e: unknown) => {
+  const [pack, manifest] = await Promise.all([getPack(getDb(), actor, packId), getPackManifest(getDb(), actor, packId).then((m) => m.manifest as PackManifest)]).catch((e: unknown) => {
     if (e instanceof AppError && (e.kind === 'not_found' || e.kind === 'conflict')) notFound();
     throw e;
   });

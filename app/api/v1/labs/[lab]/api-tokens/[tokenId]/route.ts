@@ -1,0 +1,5 @@
+import { revokeApiTokenRoute } from '@/lib/server/api';
+import { toHandler } from '@/lib/server/http';
+
+export const dynamic = 'force-dynamic';
+export const DELETE = toHandler(revokeApiTokenRoute);
