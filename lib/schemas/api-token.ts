@@ -5,8 +5,8 @@ import { LabPathSchema } from './account';
 export const API_TOKEN_SCOPES = ['read', 'write'] as const;
 export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];
 export const API_TOKEN_SCOPE_LABELS: Record<ApiTokenScope, string> = {
-  read: 'Read: editions, packs, studies and their data',
-  write: 'Read and write: also makes pack jobs and run orders',
+  read: 'Read (as a Reviewer)',
+  write: 'Write (as an Experimenter)',
 };
 
 /** The longest a token may live, in days. */

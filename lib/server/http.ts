@@ -56,6 +56,8 @@ export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z
   body?: B;
   response: R;
   successStatus?: 200 | 201 | 202 | 204;
+  /** The answer carries an ETag and is 304 when If-None-Match names it (documented as such). */
+  etag?: true;
   /** Largest accepted body in bytes (default 256 KiB), enforced while the stream is read. */
   maxBodyBytes?: number;
   /** The route takes a file as text of these content types instead of JSON (e.g. an SVG upload). */

@@ -37,8 +37,13 @@ const PROBLEM = { $ref: '#/components/responses/Problem' };
 
 function responsesOf(route: AnyRouteSpec): JsonSchema {
   const status = String(route.successStatus ?? 200);
-  const success = status === '204' ? { description: 'Done; no body' } : { description: route.summary, content: { 'application/json': { schema: jsonSchemaOf(route.response, 'output') } } };
+  const etagHeader = { ETag: { description: 'The version of this answer; send it back as If-None-Match', schema: { type: 'string' } } };
+  const success =
+    status === '204'
+      ? { description: 'Done; no body' }
+      : { description: route.summary, ...(route.etag ? { headers: etagHeader } : {}), content: { 'application/json': { schema: jsonSchemaOf(route.response, 'output') } } };
   const errors: Record<string, JsonSchema> = { '400': PROBLEM, '500': PROBLEM };
+  if (route.etag) errors['304'] = { description: 'Not modified: the If-None-Match ETag is still current', headers: etagHeader };
   if (route.access.kind !== 'public') Object.assign(errors, { '401': PROBLEM, '403': PROBLEM, '429': PROBLEM });
   if (route.access.kind === 'lab') errors['404'] = PROBLEM;
   return { [status]: success, ...errors };

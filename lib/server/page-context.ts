@@ -26,3 +26,20 @@ export async function requireLabPageActor(labSlug: string, returnTo = `/labs/${l
     throw error;
   }
 }
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** A page's id segment must be a UUID; anything else is the 404 page, not a database error. */
+export function requireUuidSegment(value: string): void {
+  if (!UUID.test(value)) notFound();
+}
+
+/** The service's answer, with its not-found error shown as the 404 page. */
+export async function orNotFound<T>(work: Promise<T>): Promise<T> {
+  try {
+    return await work;
+  } catch (error) {
+    if (error instanceof AppError && error.kind === 'not_found') notFound();
+    throw error;
+  }
+}

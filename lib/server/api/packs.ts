@@ -95,6 +95,7 @@ export const getPackManifestRoute = defineRoute({
   access: { kind: 'lab', action: 'pack:read' },
   params: PackPathSchema,
   response: z.record(z.string(), z.unknown()),
+  etag: true,
   handler: async ({ labActor, params, request }) => {
     const { manifest, etag } = await getPackManifest(getDb(), labActor(), params.packId);
     return jsonWithEtag(request, manifest, etag);

@@ -4,17 +4,16 @@ import { notFound } from 'next/navigation';
 import { AppError } from '@/lib/errors';
 import type { PackManifest } from '@/lib/pack/types';
 import { getDb } from '@/lib/server/db';
-import { requireLabPageActor } from '@/lib/server/page-context';
+import { requireLabPageActor, requireUuidSegment } from '@/lib/server/page-context';
 import { getPack, getPackManifest } from '@/lib/server/services/packs';
 
 export const metadata: Metadata = { title: 'Pack manifest' };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const SHOWN = 200;
 
 export default async function PackManifestPage({ params }: { params: Promise<{ lab: string; packId: string }> }) {
   const { lab, packId } = await params;
-  if (!UUID.test(packId)) notFound();
+  requireUuidSegment(packId);
   const { actor } = await requireLabPageActor(lab, `/labs/${lab}/packs/${packId}`);
   const [pack, manifest] = await Promise.all([getPack(getDb(), actor, packId), getPackManifest(getDb(), actor, packId).then((m) => m.manifest as PackManifest)]).catch((e: unknown) => {
     if (e instanceof AppError && (e.kind === 'not_found' || e.kind === 'conflict')) notFound();

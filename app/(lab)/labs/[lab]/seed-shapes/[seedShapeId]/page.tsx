@@ -1,25 +1,18 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { SeedShapeEditor } from '@/components/seed-shape-editor';
-import { AppError } from '@/lib/errors';
 import { getDb } from '@/lib/server/db';
-import { requireLabPageActor } from '@/lib/server/page-context';
+import { orNotFound, requireLabPageActor, requireUuidSegment } from '@/lib/server/page-context';
 import { can } from '@/lib/server/policy';
 import { getSeedShape } from '@/lib/server/services/seed-shapes';
 
 export const metadata: Metadata = { title: 'Seed shape' };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 export default async function SeedShapePage({ params }: { params: Promise<{ lab: string; seedShapeId: string }> }) {
   const { lab, seedShapeId } = await params;
-  if (!UUID.test(seedShapeId)) notFound();
+  requireUuidSegment(seedShapeId);
   const { actor } = await requireLabPageActor(lab, `/labs/${lab}/seed-shapes/${seedShapeId}`);
-  const shape = await getSeedShape(getDb(), actor, seedShapeId).catch((e: unknown) => {
-    if (e instanceof AppError && e.kind === 'not_found') notFound();
-    throw e;
-  });
+  const shape = await orNotFound(getSeedShape(getDb(), actor, seedShapeId));
   const editable = can(actor.role, 'seed:write');
   return (
     <>

@@ -1,26 +1,19 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { SpaceEditor } from '@/components/space-editor';
-import { AppError } from '@/lib/errors';
 import { getDb } from '@/lib/server/db';
-import { requireLabPageActor } from '@/lib/server/page-context';
+import { orNotFound, requireLabPageActor, requireUuidSegment } from '@/lib/server/page-context';
 import { can } from '@/lib/server/policy';
 import { listSeedOptions } from '@/lib/server/services/seed-options';
 import { getShapeSpace } from '@/lib/server/services/shape-spaces';
 
 export const metadata: Metadata = { title: 'Shape space' };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 export default async function SpacePage({ params }: { params: Promise<{ lab: string; spaceId: string }> }) {
   const { lab, spaceId } = await params;
-  if (!UUID.test(spaceId)) notFound();
+  requireUuidSegment(spaceId);
   const { actor } = await requireLabPageActor(lab, `/labs/${lab}/spaces/${spaceId}`);
-  const space = await getShapeSpace(getDb(), actor, spaceId).catch((e: unknown) => {
-    if (e instanceof AppError && e.kind === 'not_found') notFound();
-    throw e;
-  });
+  const space = await orNotFound(getShapeSpace(getDb(), actor, spaceId));
   const seeds = await listSeedOptions(getDb(), actor);
   const editable = can(actor.role, 'space:write');
   return (

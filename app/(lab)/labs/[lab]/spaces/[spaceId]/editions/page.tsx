@@ -1,26 +1,19 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { EditionStateBadge } from '@/components/edition-state-badge';
 import { shortHash } from '@/lib/edition-view';
-import { AppError } from '@/lib/errors';
 import { getDb } from '@/lib/server/db';
-import { requireLabPageActor } from '@/lib/server/page-context';
+import { orNotFound, requireLabPageActor, requireUuidSegment } from '@/lib/server/page-context';
 import { listEditions } from '@/lib/server/services/editions';
 import { getShapeSpace } from '@/lib/server/services/shape-spaces';
 
 export const metadata: Metadata = { title: 'Editions' };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 export default async function EditionsPage({ params }: { params: Promise<{ lab: string; spaceId: string }> }) {
   const { lab, spaceId } = await params;
-  if (!UUID.test(spaceId)) notFound();
+  requireUuidSegment(spaceId);
   const { actor } = await requireLabPageActor(lab, `/labs/${lab}/spaces/${spaceId}/editions`);
-  const space = await getShapeSpace(getDb(), actor, spaceId).catch((e: unknown) => {
-    if (e instanceof AppError && e.kind === 'not_found') notFound();
-    throw e;
-  });
+  const space = await orNotFound(getShapeSpace(getDb(), actor, spaceId));
   const editions = (await listEditions(getDb(), actor, spaceId, { limit: 200 })).items;
   return (
     <>

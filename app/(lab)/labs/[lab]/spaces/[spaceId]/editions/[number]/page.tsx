@@ -4,30 +4,25 @@ import { notFound } from 'next/navigation';
 import { EditionReview } from '@/components/edition-review';
 import { MakePackForm } from '@/components/make-pack-form';
 import { listDisplayProfiles } from '@/lib/server/services/display-profiles';
-import { AppError } from '@/lib/errors';
 import { getDb } from '@/lib/server/db';
-import { requireLabPageActor } from '@/lib/server/page-context';
+import { orNotFound, requireLabPageActor, requireUuidSegment } from '@/lib/server/page-context';
 import { can } from '@/lib/server/policy';
 import { getEdition, getEditionSnapshot, listComments } from '@/lib/server/services/editions';
 
 export const metadata: Metadata = { title: 'Edition review' };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 export default async function EditionPage({ params }: { params: Promise<{ lab: string; spaceId: string; number: string }> }) {
   const { lab, spaceId, number: raw } = await params;
   const number = Number(raw);
-  if (!UUID.test(spaceId) || !Number.isInteger(number) || number < 1) notFound();
+  requireUuidSegment(spaceId);
+  if (!Number.isInteger(number) || number < 1) notFound();
   const { actor } = await requireLabPageActor(lab, `/labs/${lab}/spaces/${spaceId}/editions/${number}`);
   const db = getDb();
-  const [edition, snapshot, comments] = await Promise.all([
+  const [edition, snapshot, comments] = await orNotFound(Promise.all([
     getEdition(db, actor, spaceId, number),
     getEditionSnapshot(db, actor, spaceId, number),
     listComments(db, actor, spaceId, number),
-  ]).catch((e: unknown) => {
-    if (e instanceof AppError && e.kind === 'not_found') notFound();
-    throw e;
-  });
+  ]));
   const isAuthor = edition.author?.id === actor.userId;
   const canPack = can(actor.role, 'pack:create');
   const profiles = canPack ? (await listDisplayProfiles(db, actor, { limit: 200 })).items : [];

@@ -1,21 +1,18 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { EditionDiffView } from '@/components/edition-diff-view';
 import { Notice } from '@/components/ui/notice';
 import { AppError } from '@/lib/errors';
 import { getDb } from '@/lib/server/db';
-import { requireLabPageActor } from '@/lib/server/page-context';
+import { requireLabPageActor, requireUuidSegment } from '@/lib/server/page-context';
 import { DiffQuerySchema } from '@/lib/schemas/edition';
 import { diffEditionsOf } from '@/lib/server/services/editions';
 
 export const metadata: Metadata = { title: 'Edition differences' };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 export default async function EditionDiffPage({ params, searchParams }: { params: Promise<{ lab: string; spaceId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { lab, spaceId } = await params;
-  if (!UUID.test(spaceId)) notFound();
+  requireUuidSegment(spaceId);
   const { actor } = await requireLabPageActor(lab, `/labs/${lab}/spaces/${spaceId}/editions`);
   const query = DiffQuerySchema.safeParse(await searchParams);
   const crumbs = (
