@@ -1,6 +1,6 @@
 // Child-process helpers for the start and test scripts (plain Node, no dependencies).
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, statSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve, dirname } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { log } from './log.mjs';
@@ -35,11 +35,34 @@ export function runTs(script, env) {
 }
 
 /** Installs dependencies with `npm ci` when node_modules is missing or older than the lockfile. */
+/**
+ * Whether node_modules holds what the lockfile asks for: npm's record of the installed tree (its hidden lockfile)
+ * has every required package at the locked version. Compared by content, not by file times, so a second checkout
+ * sharing this node_modules (a git worktree) does not reinstall it.
+ */
+function installedMatchesLock(lock, marker) {
+  try {
+    const wanted = JSON.parse(readFileSync(lock, 'utf8')).packages ?? {};
+    const have = JSON.parse(readFileSync(marker, 'utf8')).packages ?? {};
+    for (const [path, entry] of Object.entries(wanted)) {
+      if (path === '' || entry.link) continue;
+      const installed = have[path];
+      if (!installed) {
+        if (entry.optional || entry.devOptional || entry.peer) continue;
+        return false;
+      }
+      if (installed.version !== entry.version) return false;
+    }
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 export function ensureDependencies() {
   const marker = join(ROOT, 'node_modules', '.package-lock.json');
   const lock = join(ROOT, 'package-lock.json');
-  const stale = !existsSync(marker) || (existsSync(lock) && statSync(lock).mtimeMs > statSync(marker).mtimeMs + 1000);
-  if (!stale) return;
+  if (existsSync(marker) && existsSync(lock) && installedMatchesLock(lock, marker)) return;
   log('deps', 'installing dependencies with npm ci (no browser download)…');
   const r = spawnSync('npm', ['ci', '--no-audit', '--no-fund'], {
     cwd: ROOT,
