@@ -190,3 +190,26 @@ export const TrialPlanSchema = z.object({
   }),
 });
 export type TrialPlanValue = z.infer<typeof TrialPlanSchema>;
+
+/** A starting point for the form: eight diameters 22.5° apart, nine levels, four repetitions (about 20 minutes). */
+export const DEFAULT_CATEGORISATION: CategorisationTaskValue = {
+  directionsDeg: [0, 22.5, 45, 67.5, 90, 112.5, 135, 157.5],
+  steps: 9,
+  extent: 1,
+  repetitions: 4,
+  blocking: 'interleaved',
+  practiceTrials: 8,
+  catchRate: 0.1,
+  timing: { fixationMs: 500, probeMs: 400, blankMs: 200, responseMs: 2500, itiMs: 700 },
+  keys: ['f', 'j'],
+};
+
+export const DEFAULT_SIMILARITY: SimilarityTaskValue = {
+  pairSet: 'all',
+  pairCount: null,
+  presentation: 'sequential',
+  scaleLow: 'Very different',
+  scaleHigh: 'Very similar',
+  repetitions: 1,
+  timing: { fixationMs: 500, stimulusMs: 800, gapMs: 400, responseMs: 5000, itiMs: 700 },
+};
