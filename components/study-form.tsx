@@ -199,6 +199,7 @@ export function StudyForm({ lab, editions, study, canEdit }: { lab: string; edit
 
   return (
     <form onSubmit={form.handleSubmit((v) => save.mutate(v))} className="max-w-3xl space-y-6 text-sm" noValidate aria-label="Study setup" data-testid="study-form">
+      {!study ? <EthicsNotice /> : null}
       <fieldset disabled={!canEdit} className="space-y-6">
         <Field label="Name" {...form.register('name')} error={err('name')} data-testid="study-name" />
 
@@ -357,7 +358,6 @@ export function StudyForm({ lab, editions, study, canEdit }: { lab: string; edit
         {flash ? <PhotosensitivityNotice peakPerSecond={flash.peakPerSecond} isAboveLimit={flash.isAboveLimit} /> : null}
       </section>
 
-      {!study ? <EthicsNotice /> : null}
       {formError ? <Notice tone="error" testId="study-form-error">{formError}</Notice> : null}
       {canEdit && study?.state !== 'closed' ? (
         <Button type="submit" disabled={save.isPending} data-testid="save-study">
