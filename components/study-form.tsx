@@ -146,7 +146,10 @@ export function StudyForm({ lab, editions, study, canEdit }: { lab: string; edit
   const editionId = form.watch('editionId');
   const edition = editions.find((e) => e.id === editionId);
   const [directionsText, setDirectionsText] = useState(formatDirections(design.categorisation?.directionsDeg ?? DEFAULT_CATEGORISATION.directionsDeg));
-  const [spacing, setSpacing] = useState('22.5');
+  const [spacing, setSpacing] = useState(() => {
+    const [a, b] = design.categorisation?.directionsDeg ?? [];
+    return a !== undefined && b !== undefined ? String(b - a) : '22.5';
+  });
   const [formError, setFormError] = useState<string | null>(null);
 
   const coreDesign = { ...design, seed: design.seed ?? 0 } as StudyDesign;

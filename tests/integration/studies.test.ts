@@ -5,6 +5,7 @@ import { getDb } from '@/lib/server/db';
 import { inviteTokenHash } from '@/lib/server/study-invite';
 import { findStudyByInviteHash } from '@/db/repositories/studies';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
+import { makeEdition } from '../support/editions';
 
 type Study = {
   id: string;
@@ -22,7 +23,6 @@ type Study = {
 type Problem = { status: number; code: string; errors?: Record<string, string[]> };
 type Plan = { participant: number; keys: { left: string; right: string }; trials: { index: number; task: string }[]; summary: { cells: { trials: number; leftA: number }[]; totalTrials: number } };
 
-const SEED = { family: 'radial', baseRadius: 1, terms: [{ k: 3, amplitude: 0.1, phase: 0.2 }] };
 const CATEGORISATION = {
   directionsDeg: [0, 45, 90, 135],
   steps: 7,
@@ -34,36 +34,6 @@ const CATEGORISATION = {
   timing: { fixationMs: 500, probeMs: 300, blankMs: 200, responseMs: 2000, itiMs: 600 },
   keys: ['f', 'j'],
 };
-
-async function makeEdition(lab: TestLab, approve: boolean): Promise<{ editionId: string; stimulusCount: number }> {
-  const as = (role: keyof TestLab['members']) => lab.members[role].cookie;
-  const seed = await callRoute(api.createSeedShapeRoute, { params: { lab: lab.slug }, body: { name: `Seed ${approve}`, descriptor: SEED }, cookie: as('designer') });
-  const space = await callRoute(api.createShapeSpaceRoute, {
-    params: { lab: lab.slug },
-    body: {
-      name: `Study space ${approve ? 'approved' : 'draft'}`,
-      seedShapeId: (seed.body as { id: string }).id,
-      axes: [
-        { label: 'A', changes: [{ harmonic: 2, field: 'amplitude', delta: 0.08 }] },
-        { label: 'B', changes: [{ harmonic: 4, field: 'amplitude', delta: 0.08 }] },
-      ],
-      extent: 1,
-      layout: { kind: 'rings', rings: 2, spokes: 6 },
-      normalization: { scale: 'equal-area-radius', centroid: true },
-      equalize: false,
-    },
-    cookie: as('designer'),
-  });
-  const spaceId = (space.body as { id: string }).id;
-  const frozen = await callRoute(api.freezeEditionRoute, { params: { lab: lab.slug, spaceId }, body: { changeNote: '' }, cookie: as('designer') });
-  expect(frozen.status).toBe(201);
-  if (approve) {
-    expect((await callRoute(api.submitEditionRoute, { params: { lab: lab.slug, spaceId, number: '1' }, cookie: as('designer') })).status).toBe(200);
-    expect((await callRoute(api.decideEditionRoute, { params: { lab: lab.slug, spaceId, number: '1' }, body: { decision: 'approve' }, cookie: as('reviewer') })).status).toBe(200);
-  }
-  const e = frozen.body as { id: string; stimulusCount: number };
-  return { editionId: e.id, stimulusCount: e.stimulusCount };
-}
 
 describe('norming studies API', () => {
   let lab: TestLab;
@@ -83,8 +53,8 @@ describe('norming studies API', () => {
 
   beforeAll(async () => {
     lab = await createLabWithEveryRole(getDb());
-    approved = await makeEdition(lab, true);
-    draft = await makeEdition(lab, false);
+    approved = await makeEdition(lab, 'Study space approved', true);
+    draft = await makeEdition(lab, 'Study space draft', false);
   }, 60_000);
   afterAll(async () => {
     await getDb().destroy();
@@ -126,7 +96,7 @@ describe('norming studies API', () => {
 
   it('gives a field-level message for each kind of bad input, and saves nothing', async () => {
     const other = await createLabWithEveryRole(getDb());
-    const foreign = await makeEdition(other, true);
+    const foreign = await makeEdition(other, 'Foreign space', true);
     const before = await countStudies();
     const cases: [unknown, string][] = [
       [body({}, { categorisation: { ...CATEGORISATION, directionsDeg: [] } }), 'design.categorisation.directionsDeg'],

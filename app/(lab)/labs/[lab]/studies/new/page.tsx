@@ -8,11 +8,15 @@ import { listStudyEditions } from '@/lib/server/services/studies';
 
 export const metadata: Metadata = { title: 'New norming study' };
 
-export default async function NewStudyPage({ params }: { params: Promise<{ lab: string }> }) {
+export default async function NewStudyPage({ params, searchParams }: { params: Promise<{ lab: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { lab } = await params;
+  const { edition } = await searchParams;
   const { actor } = await requireLabPageActor(lab, `/labs/${lab}/studies/new`);
   if (!can(actor.role, 'study:write')) notFound();
-  const editions = await listStudyEditions(getDb(), actor);
+  const all = await listStudyEditions(getDb(), actor);
+  // An edition picked on its own page comes first, so the form starts on it.
+  const picked = all.find((e) => e.id === edition);
+  const editions = picked ? [picked, ...all.filter((e) => e !== picked)] : all;
   return (
     <>
       <h1 className="mb-2 text-2xl font-semibold">New norming study</h1>
