@@ -7,6 +7,7 @@ export const LAB_SECTIONS = [
   { segment: 'spaces', label: 'Shape spaces' },
   { segment: 'packs', label: 'Packs' },
   { segment: 'display-profiles', label: 'Display profiles' },
+  { segment: 'studies', label: 'Norming studies' },
   { segment: 'settings/members', label: 'Members' },
   { segment: 'settings/api-tokens', label: 'API tokens' },
   { segment: 'api', label: 'API' },

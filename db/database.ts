@@ -210,6 +210,34 @@ export interface LabApiTokensTable {
   revoked_by: string | null;
 }
 
+export type StudyState = 'draft' | 'open' | 'closed';
+
+/** A norming study: its design (fixed once Open, by a trigger), its texts and its invite link. */
+export interface StudiesTable {
+  id: Generated<string>;
+  lab_id: string;
+  edition_id: string;
+  name: string;
+  state: ColumnType<StudyState, StudyState | undefined, StudyState>;
+  design: ColumnType<unknown, string, string>;
+  edition_warning: string | null;
+  consent_text: string;
+  instructions_text: Generated<string>;
+  debrief_text: Generated<string>;
+  finish_code_prefix: Generated<string>;
+  target_participants: number;
+  invite_nonce: string | null;
+  invite_token_hash: string | null;
+  invite_rotated_at: Date | null;
+  version: Generated<number>;
+  created_by: string | null;
+  updated_by: string | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+  opened_at: Date | null;
+  closed_at: Date | null;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
@@ -226,6 +254,7 @@ export interface Database {
   display_profiles: DisplayProfilesTable;
   packs: PacksTable;
   lab_api_tokens: LabApiTokensTable;
+  studies: StudiesTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -241,3 +270,4 @@ export type EditionCommentRow = Selectable<EditionCommentsTable>;
 export type DisplayProfileRow = Selectable<DisplayProfilesTable>;
 export type PackRow = Selectable<PacksTable>;
 export type LabApiTokenRow = Selectable<LabApiTokensTable>;
+export type StudyRow = Selectable<StudiesTable>;

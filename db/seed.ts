@@ -13,6 +13,9 @@ import { insertEdition, listEditions, transitionEdition } from './repositories/e
 import { insertDisplayProfile, listDisplayProfiles } from './repositories/display-profiles';
 import { buildSnapshot, contentHash } from '@/lib/edition';
 import { ENGINE_VERSION } from '@/lib/shape/engine-version';
+import { DEFAULT_CATEGORISATION } from '@/lib/schemas/study';
+import { checkStudyDesign, type StudyDesign } from '@/lib/study';
+import { insertStudy, listStudies } from './repositories/studies';
 
 /**
  * The demo lab, an invented scenario: the Halden Form Perception Group is preparing a study on how people
@@ -74,6 +77,20 @@ export const DEMO_DISPLAY_PROFILE = { name: 'Testing room B monitor', widthPx: 1
 
 /** bcrypt cost for demo accounts (the same as real ones). */
 const DEMO_BCRYPT_COST = 12;
+
+/** The demo lab's pilot norming study (a Draft): two-choice categorisation along eight diameters of edition 1. */
+export const DEMO_STUDY = {
+  name: 'Pilot diameter norming',
+  texts: {
+    consentText:
+      'You are invited to a 20-minute study on how people see simple shapes. You will decide which of two shapes a third one resembles. Taking part is voluntary and you may stop at any time without giving a reason. No names or e-mail addresses are recorded. By continuing you agree to take part.',
+    instructionsText: 'A shape appears in the middle with one shape on each side. Press the key for the side shape it looks more like. Answer quickly; there are no trick questions.',
+    debriefText: 'Thank you. This pilot checks that the shapes change evenly in every direction before the main category-learning study.',
+    finishCodePrefix: 'HALDEN',
+    targetParticipants: 16,
+  },
+  design: { seed: 4711, stimulusSizeDeg: 4, categorisation: { ...DEFAULT_CATEGORISATION, extent: 0.9, repetitions: 3 }, similarity: null } satisfies StudyDesign,
+} as const;
 
 export async function seedDemo(db: Db): Promise<string> {
   const created: string[] = [];
@@ -151,6 +168,15 @@ export async function seedDemo(db: Db): Promise<string> {
       await transitionEdition(trx, id, 'draft', 'in_review', { submitted_by: designer!.id, submitted_at: new Date() });
       await transitionEdition(trx, id, 'in_review', 'approved', { decided_by: reviewer!.id, decided_at: new Date(), decision_note: 'Spacing and the boundary look even; approved for norming.' });
       created.push(`approved edition 1 of ${DEMO_SPACE.name}`);
+    }
+
+    if ((await listStudies(trx, lab.id, { limit: 100 })).length === 0) {
+      const edition = (await listEditions(trx, lab.id, space.id, { limit: 1 }))[0]!;
+      const issues = checkStudyDesign(DEMO_STUDY.design, edition.stimulus_count);
+      if (issues.length) throw new Error(`demo study is invalid: ${issues.map((i) => i.message).join('; ')}`);
+      const experimenter = await findUserByEmail(trx, DEMO_USERS.find((u) => u.role === 'experimenter')!.email);
+      await insertStudy(trx, lab.id, experimenter!.id, { name: DEMO_STUDY.name, ...DEMO_STUDY.texts }, { editionId: edition.id, design: DEMO_STUDY.design, editionWarning: null });
+      created.push(`study ${DEMO_STUDY.name}`);
     }
 
     if ((await listDisplayProfiles(trx, lab.id, { limit: 100 })).length === 0) {

@@ -78,6 +78,21 @@ export function listApprovedEditions(db: DbHandle, labId: string, limit: number)
   return withJoins(db).where('editions.lab_id', '=', labId).where('editions.state', '=', 'approved').orderBy('editions.decided_at', 'desc').limit(limit).execute();
 }
 
+/** Every edition of the lab for choosing one (studies): Approved first, then the rest, newest first. */
+export function listEditionChoices(db: DbHandle, labId: string, limit: number): Promise<EditionListRow[]> {
+  return withJoins(db)
+    .where('editions.lab_id', '=', labId)
+    .orderBy((eb) => eb.case().when('editions.state', '=', 'approved').then(0).else(1).end())
+    .orderBy('editions.created_at', 'desc')
+    .limit(limit)
+    .execute();
+}
+
+/** The lab's edition with this id, or undefined (also for an edition of another lab). */
+export function findEditionById(db: DbHandle, labId: string, id: string): Promise<EditionListRow | undefined> {
+  return withJoins(db).where('editions.lab_id', '=', labId).where('editions.id', '=', id).executeTakeFirst();
+}
+
 export async function getEdition(db: DbHandle, labId: string, spaceId: string, number: number): Promise<EditionListRow> {
   const row = await withJoins(db).where('editions.lab_id', '=', labId).where('editions.space_id', '=', spaceId).where('editions.number', '=', number).executeTakeFirst();
   if (!row) throw notFound('edition', `This space has no edition ${number}.`);

@@ -45,6 +45,17 @@ const SPACE = {
   normalization: { scale: 'equal-area-radius', centroid: true },
   equalize: false,
 };
+const CATEGORISATION = {
+  directionsDeg: [0, 90],
+  steps: 7,
+  extent: 0.8,
+  repetitions: 1,
+  blocking: 'interleaved',
+  practiceTrials: 2,
+  catchRate: 0.1,
+  timing: { fixationMs: 500, probeMs: 300, blankMs: 200, responseMs: 2000, itiMs: 600 },
+  keys: ['f', 'j'],
+};
 const PROFILE = { resolutionPx: { width: 1920, height: 1080 }, widthCm: 53.1, pixelsPerCm: null, viewingDistanceCm: 57 };
 const CSV_CIRCLE = Array.from({ length: 64 }, (_, i) => `${Math.cos((2 * Math.PI * i) / 64).toFixed(6)},${Math.sin((2 * Math.PI * i) / 64).toFixed(6)}`).join('\n');
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -139,7 +150,9 @@ describe('the OpenAPI document and the API agree', () => {
       ['updateShapeSpace', () => ({ as: 'designer', params: space(), body: { name: `Space ${suffix} b`, version: 1 }, status: 200 })],
       ['listSpaceStimuli', () => ({ as: 'token', params: space(), query: { limit: '3' }, status: 200 })],
       ['putSpaceBoundaries', () => ({ as: 'designer', params: space(), body: { boundaries: [{ key: 'split', angleDeg: 30 }], version: 1 }, status: 200 })],
-      ['freezeEdition', () => ({ as: 'designer', params: space(), body: { changeNote: 'first' }, status: 201 })],
+      ['freezeEdition', () => ({ as: 'designer', params: space(), body: { changeNote: 'first' }, status: 201 }), (b) => {
+        ids.edition = (b as { id: string }).id;
+      }],
       ['listEditions', () => ({ as: 'token', params: space(), status: 200 })],
       ['getEdition', () => ({ as: 'token', params: edition(1), status: 200 })],
       ['updateEdition', () => ({ as: 'designer', params: edition(1), body: { changeNote: 'first, with a note' }, status: 200 })],
@@ -175,6 +188,18 @@ describe('the OpenAPI document and the API agree', () => {
       }],
       ['packDownloadLink', () => ({ as: 'token', params: pack(), status: 200 })],
       ['checkPack', () => ({ as: 'token', params: L(), body: { manifest: ids.manifest!, sums: '0'.repeat(64) + '  manifest.json\n' }, status: 200 })],
+      ['createStudy', () => ({ as: 'token', params: L(), body: { name: `Study ${suffix}`, editionId: ids.edition!, consentText: 'I agree to take part.', targetParticipants: 12, design: { stimulusSizeDeg: 4, categorisation: CATEGORISATION, similarity: null } }, status: 201 }), (b) => {
+        ids.study = (b as { id: string }).id;
+      }],
+      ['listStudies', () => ({ as: 'token', params: L(), status: 200 })],
+      ['getStudy', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      ['updateStudy', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, body: { name: `Study ${suffix} b`, version: 1 }, status: 200 })],
+      ['getStudyPlan', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, query: { participant: '2' }, status: 200 })],
+      ['openStudy', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, body: { confirmEthics: true }, status: 200 })],
+      ['rotateStudyInvite', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      ['revokeStudyInvite', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      ['closeStudy', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      ['deleteStudy', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.spareStudy! }, status: 204 })],
       ['createApiToken', () => ({ as: 'owner', params: L(), body: { name: `Script ${suffix}`, scope: 'read', expiresInDays: 7 }, status: 201 }), (b) => {
         ids.token = (b as { id: string }).id;
       }],
@@ -199,6 +224,16 @@ describe('the OpenAPI document and the API agree', () => {
     const spareProfile = await callRoute(api.createDisplayProfileRoute, { params: L(), body: { name: `Spare screen ${suffix}`, ...PROFILE }, cookie: lab.members.experimenter.cookie });
     ids.spareProfile = (spareProfile.body as { id: string }).id;
 
+    // A Draft study to delete, made when the edition exists (just before its call).
+    const makeSpareStudy = async () => {
+      const r = await callRoute(api.createStudyRoute, {
+        params: L(),
+        body: { name: `Spare study ${suffix}`, editionId: ids.edition, consentText: 'I agree.', targetParticipants: 1, design: { stimulusSizeDeg: 4, categorisation: CATEGORISATION, similarity: null } },
+        cookie: lab.members.experimenter.cookie,
+      });
+      ids.spareStudy = (r.body as { id: string }).id;
+    };
+
     const document = doc();
     const byId = new Map<string, { path: string; method: string; responses: Doc['paths'][string][string]['responses'] }>();
     for (const [path, ops] of Object.entries(document.paths)) for (const [method, op] of Object.entries(ops)) byId.set(op.operationId, { path, method, responses: op.responses });
@@ -208,6 +243,7 @@ describe('the OpenAPI document and the API agree', () => {
     const ajv = new Ajv2020({ strict: false, allErrors: true, validateFormats: false });
     for (const [id, describeCall, after] of calls) {
       if (id === 'signOutEverywhere') ids.newUserCookie = await sessionCookie(ids.newUser!);
+      if (id === 'deleteStudy') await makeSpareStudy();
       const call = describeCall();
       const who = call.as ?? 'owner';
       const auth = who === 'anonymous' ? {} : who === 'token' ? { bearer: token } : typeof who === 'object' ? { cookie: who.cookie } : { cookie: lab.members[who].cookie };

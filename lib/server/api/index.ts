@@ -9,5 +9,6 @@ export * from './editions';
 export * from './display-profiles';
 export * from './packs';
 export * from './pack-checks';
+export * from './studies';
 export * from './api-tokens';
 export * from './openapi';

@@ -49,6 +49,13 @@ export default async function EditionPage({ params }: { params: Promise<{ lab: s
         comments={comments}
         can={{ submit: can(actor.role, 'edition:submit'), decide: can(actor.role, 'edition:decide') && !isAuthor, comment: can(actor.role, 'edition:comment'), isAuthor }}
       />
+      {can(actor.role, 'study:write') ? (
+        <p className="mt-6 text-sm">
+          <Link href={`/labs/${lab}/studies/new?edition=${edition.id}`} className="text-accent underline underline-offset-2" data-testid="new-study-on-edition">
+            Set up a norming study on this edition
+          </Link>
+        </p>
+      ) : null}
       {canPack ? (
         <div className="mt-8 max-w-4xl">
           <MakePackForm lab={lab} spaceId={spaceId} number={number} stimulusCount={edition.stimulusCount} profiles={profiles} />

@@ -1,0 +1,65 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { StudyForm } from '@/components/study-form';
+import { StudyLifecycle } from '@/components/study-lifecycle';
+import { formatMinutes, StudyStateBadge } from '@/components/study-notices';
+import { StudyPlanPreview } from '@/components/study-plan-preview';
+import { Notice } from '@/components/ui/notice';
+import { getDb } from '@/lib/server/db';
+import { requireLabPageActor } from '@/lib/server/page-context';
+import { can } from '@/lib/server/policy';
+import { getStudy, listStudyEditions } from '@/lib/server/services/studies';
+
+export const metadata: Metadata = { title: 'Study setup' };
+
+export default async function StudyPage({ params }: { params: Promise<{ lab: string; studyId: string }> }) {
+  const { lab, studyId } = await params;
+  const { actor } = await requireLabPageActor(lab, `/labs/${lab}/studies/${studyId}`);
+  const db = getDb();
+  const study = await getStudy(db, actor, studyId);
+  const editions = await listStudyEditions(db, actor);
+  const canEdit = can(actor.role, 'study:write');
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link href={`/labs/${lab}/studies`} className="text-accent underline underline-offset-2">
+          Norming studies
+        </Link>
+      </p>
+      <div className="mb-2 flex flex-wrap items-center gap-3">
+        <h1 className="text-2xl font-semibold" data-testid="study-title">
+          {study.name}
+        </h1>
+        <StudyStateBadge state={study.state} testId="study-state" />
+      </div>
+      <p className="tabular mb-6 text-sm text-graphite-soft" data-testid="study-facts">
+        On{' '}
+        <Link href={`/labs/${lab}/spaces/${study.edition.spaceId}/editions/${study.edition.number}`} className="text-accent underline underline-offset-2">
+          {study.edition.spaceName}, edition {study.edition.number}
+        </Link>{' '}
+        · {study.plannedTrials.total} trials per participant · at most {formatMinutes(study.estimatedSeconds)} · target {study.targetParticipants} participants
+      </p>
+      {study.editionWarning ? (
+        <div className="mb-6">
+          <Notice tone="caution" testId="stored-edition-warning">
+            {study.editionWarning}
+          </Notice>
+        </div>
+      ) : null}
+      <div className="grid gap-8 xl:grid-cols-[1fr_24rem]">
+        <div className="min-w-0 space-y-10">
+          <StudyPlanPreview lab={lab} study={study} />
+          <section aria-labelledby="setup-heading">
+            <h2 id="setup-heading" className="mb-4 text-lg font-semibold">
+              Study setup
+            </h2>
+            <StudyForm lab={lab} editions={editions} study={study} canEdit={canEdit} />
+          </section>
+        </div>
+        <div className="space-y-6">
+          <StudyLifecycle lab={lab} study={study} canEdit={canEdit} />
+        </div>
+      </div>
+    </>
+  );
+}

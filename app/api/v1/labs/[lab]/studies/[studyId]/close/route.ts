@@ -1,0 +1,5 @@
+import { closeStudyRoute } from '@/lib/server/api';
+import { toHandler } from '@/lib/server/http';
+
+export const dynamic = 'force-dynamic';
+export const POST = toHandler(closeStudyRoute);
