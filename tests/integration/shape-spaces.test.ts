@@ -46,16 +46,28 @@ describe('shape spaces API', () => {
     expect(r.status, JSON.stringify(r.body)).toBe(201);
     const space = r.body as { id: string; stimulusCount: number; version: number };
     expect(space.stimulusCount).toBe(81);
-    const stimuli = await callRoute(api.listSpaceStimuliRoute, { params: { lab: lab.slug, spaceId: space.id }, cookie: lab.members.reviewer.cookie });
-    const ids = (stimuli.body as { items: { id: string }[] }).items.map((s) => s.id);
+    // The list pages by cursor: 50 by default, then the rest.
+    const allIds = async (cookie: string) => {
+      const seen: string[] = [];
+      let cursor: string | null = null;
+      do {
+        const page = await callRoute(api.listSpaceStimuliRoute, { params: { lab: lab.slug, spaceId: space.id }, cookie, ...(cursor ? { query: { cursor } } : {}) });
+        const body = page.body as { items: { id: string }[]; nextCursor: string | null };
+        seen.push(...body.items.map((s) => s.id));
+        cursor = body.nextCursor;
+      } while (cursor);
+      return seen;
+    };
+    const first = await callRoute(api.listSpaceStimuliRoute, { params: { lab: lab.slug, spaceId: space.id }, cookie: lab.members.reviewer.cookie });
+    expect((first.body as { items: unknown[] }).items).toHaveLength(50);
+    const ids = await allIds(lab.members.reviewer.cookie);
     expect(ids).toHaveLength(81);
     expect(new Set(ids).size).toBe(81);
 
     // Changing ρmax keeps every id: ids are layout positions.
     const patched = await callRoute(api.updateShapeSpaceRoute, { params: { lab: lab.slug, spaceId: space.id }, body: { extent: 0.8, version: space.version }, cookie: lab.members.owner.cookie });
     expect(patched.status, JSON.stringify(patched.body)).toBe(200);
-    const again = await callRoute(api.listSpaceStimuliRoute, { params: { lab: lab.slug, spaceId: space.id }, cookie: lab.members.designer.cookie });
-    expect((again.body as { items: { id: string }[] }).items.map((s) => s.id)).toEqual(ids);
+    expect(await allIds(lab.members.designer.cookie)).toEqual(ids);
   });
 
   it('only Designer and Owner write; everyone reads', async () => {
