@@ -96,6 +96,22 @@ describe('the OpenAPI document and the API agree', () => {
     expect(documented.sort()).toEqual(mountedRoutes().sort());
   });
 
+  it('every list takes cursor and limit and answers { items, nextCursor }', () => {
+    const lists: string[] = [];
+    for (const ops of Object.values(doc().paths)) {
+      for (const op of Object.values(ops) as unknown as { operationId: string; parameters: { name: string; in: string }[]; responses: Record<string, { content?: Record<string, { schema: { properties?: Record<string, unknown> } }> }> }[]) {
+        const ok = Object.entries(op.responses).find(([status]) => status.startsWith('2'))?.[1];
+        const schema = ok?.content?.['application/json']?.schema;
+        if (!schema?.properties?.items) continue;
+        lists.push(op.operationId);
+        expect(schema.properties.nextCursor, op.operationId).toBeDefined();
+        const query = op.parameters.filter((p) => p.in === 'query').map((p) => p.name);
+        expect(query, op.operationId).toEqual(expect.arrayContaining(['cursor', 'limit']));
+      }
+    }
+    expect(lists.length).toBeGreaterThan(10);
+  });
+
   it('every operation, called, answers as documented', async () => {
     const L = () => ({ lab: lab.slug });
     const space = () => ({ lab: lab.slug, spaceId: ids.space! });
