@@ -185,10 +185,31 @@ export interface PacksTable {
   sha256: string | null;
   stimulus_count: number | null;
   manifest: ColumnType<unknown | null, string | null, string | null>;
+  /** Run order files attached under `sequences/`: `{ name, text }[]`, copied when the pack was asked for. */
+  sequences: ColumnType<unknown, string | undefined, string>;
   created_by: string | null;
   created_at: Generated<Date>;
   started_at: Date | null;
   finished_at: Date | null;
+  updated_at: Generated<Date>;
+}
+
+export type RunOrderState = 'ready' | 'queued' | 'running' | 'failed';
+
+/** A run order of an edition: its definition (with the seed) and, once built, the order itself. */
+export interface RunOrdersTable {
+  id: Generated<string>;
+  lab_id: string;
+  edition_id: string;
+  name: string;
+  definition: ColumnType<unknown, string, string>;
+  state: ColumnType<RunOrderState, RunOrderState | undefined, RunOrderState>;
+  error: string | null;
+  job_id: string | null;
+  result: ColumnType<unknown | null, string | null, string | null>;
+  version: Generated<number>;
+  created_by: string | null;
+  created_at: Generated<Date>;
   updated_at: Generated<Date>;
 }
 
@@ -207,6 +228,7 @@ export interface Database {
   edition_comments: EditionCommentsTable;
   display_profiles: DisplayProfilesTable;
   packs: PacksTable;
+  run_orders: RunOrdersTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -221,3 +243,4 @@ export type EditionRow = Selectable<EditionsTable>;
 export type EditionCommentRow = Selectable<EditionCommentsTable>;
 export type DisplayProfileRow = Selectable<DisplayProfilesTable>;
 export type PackRow = Selectable<PacksTable>;
+export type RunOrderRow = Selectable<RunOrdersTable>;

@@ -6,6 +6,7 @@ import * as m20261202070000 from './20261202070000_create_shape_spaces';
 import * as m20261202080000 from './20261202080000_create_boundaries_and_editions';
 import * as m20261202090000 from './20261202090000_create_display_profiles';
 import * as m20261202100000 from './20261202100000_create_packs';
+import * as m20261202120000 from './20261202120000_create_run_orders';
 
 /**
  * Every migration, by name, in order. Listed statically so the same set runs under tsx, vitest and the app
@@ -19,4 +20,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202080000_create_boundaries_and_editions': m20261202080000,
   '20261202090000_create_display_profiles': m20261202090000,
   '20261202100000_create_packs': m20261202100000,
+  '20261202120000_create_run_orders': m20261202120000,
 };

@@ -9,3 +9,4 @@ export * from './editions';
 export * from './display-profiles';
 export * from './packs';
 export * from './pack-checks';
+export * from './run-orders';
