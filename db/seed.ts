@@ -13,6 +13,10 @@ import { insertEdition, listEditions, transitionEdition } from './repositories/e
 import { insertDisplayProfile, listDisplayProfiles } from './repositories/display-profiles';
 import { buildSnapshot, contentHash } from '@/lib/edition';
 import { ENGINE_VERSION } from '@/lib/shape/engine-version';
+import { buildRunOrderOf } from '@/lib/run-order-build';
+import { DEFAULT_RUN_ORDER_DEFINITION, RunOrderDefinitionSchema } from '@/lib/schemas/run-order';
+import { getEditionSnapshot as getSnapshotRow } from './repositories/editions';
+import { insertRunOrder, listRunOrders } from './repositories/run-orders';
 
 /**
  * The demo lab, an invented scenario: the Halden Form Perception Group is preparing a study on how people
@@ -51,6 +55,18 @@ export const DEMO_SEED_SHAPES: readonly { name: string; descriptor: ShapeDescrip
 ];
 
 /** The demo lab's space: Rings 5 × 16 + centre around the pebble, sweeping its 2nd and a new 4th harmonic. */
+export const DEMO_RUN_ORDER = {
+  name: 'Pilot scan, ring 3',
+  definition: {
+    ...DEFAULT_RUN_ORDER_DEFINITION,
+    conditions: { selection: 'rings' as const, indices: [3], includeCentre: false, nullEvents: true },
+    timing: { trialDuration: 1, iti: { kind: 'uniform' as const, min: 2, max: 4 }, tr: 2, dummyVolumes: 4, dummyVolumesStored: false },
+    runs: 2,
+    seed: 20260914,
+    bids: { subject: 'pilot01', session: '', task: 'shapes' },
+  },
+};
+
 export const DEMO_SPACE = {
   name: 'Pebble rings (demo)',
   seed: 'Harbour pebble',
@@ -151,6 +167,17 @@ export async function seedDemo(db: Db): Promise<string> {
       await transitionEdition(trx, id, 'draft', 'in_review', { submitted_by: designer!.id, submitted_at: new Date() });
       await transitionEdition(trx, id, 'in_review', 'approved', { decided_by: reviewer!.id, decided_at: new Date(), decision_note: 'Spacing and the boundary look even; approved for norming.' });
       created.push(`approved edition 1 of ${DEMO_SPACE.name}`);
+    }
+
+    // One invented run order: ring 3 (16 stimuli) plus null events, a de Bruijn cycle per run, jittered ITIs.
+    const edition1 = (await listEditions(trx, lab.id, space.id, { limit: 100 })).find((e) => e.number === 1)!;
+    if ((await listRunOrders(trx, lab.id, edition1.id, { limit: 1 })).length === 0) {
+      const experimenter = await findUserByEmail(trx, DEMO_USERS.find((u) => u.role === 'experimenter')!.email);
+      const definition = RunOrderDefinitionSchema.parse({ ...DEMO_RUN_ORDER.definition });
+      const ids = ((await getSnapshotRow(trx, edition1.id)) as { stimuli: { id: string }[] }).stimuli.map((x) => x.id);
+      const result = buildRunOrderOf(definition, ids);
+      await insertRunOrder(trx, { labId: lab.id, editionId: edition1.id, name: DEMO_RUN_ORDER.name, definition, state: 'ready', result, createdBy: experimenter!.id });
+      created.push(`run order ${DEMO_RUN_ORDER.name}`);
     }
 
     if ((await listDisplayProfiles(trx, lab.id, { limit: 100 })).length === 0) {

@@ -5,7 +5,8 @@ import { SequenceError } from './sequence/sequence-error';
 import { SEQUENCE_LIMITS } from './sequence/sequence-limits';
 import type { RunOrder, RunOrderOptions } from './sequence/types';
 import { selectLayoutStimuli } from './space/select-layout-stimuli';
-import type { RunOrderDefinition } from './schemas/run-order';
+import { eventsFileName } from './sequence/events-file-name';
+import type { RunOrderDefinition, RunOrderResultValue } from './schemas/run-order';
 
 /** Largest n whose type-1 index-1 search runs inline (n = 6…12 take milliseconds; the requirement is < 5 s). */
 export const INLINE_TYPE1_MAX_CONDITIONS = 12;
@@ -88,6 +89,25 @@ export function definitionFieldOf(error: SequenceError): string {
   const field = error.details.field ?? '';
   if (field.startsWith('conditions.')) return 'conditions';
   return FIELD_OF[field] ?? (field.startsWith('iti.') ? `timing.${field}` : 'conditions');
+}
+
+/** BIDS labels of a definition, as `eventsFileName` takes them (an empty session is left out). */
+export function bidsLabelsOf(definition: RunOrderDefinition) {
+  const { subject, session, task } = definition.bids;
+  return { subject, task, ...(session ? { session } : {}) };
+}
+
+/** The figures of a built order as the API and the page show them (no trials), with each run's file name. */
+export function runOrderResultOf(order: RunOrder, definition: RunOrderDefinition): RunOrderResultValue {
+  return {
+    conditions: order.conditions.map((c) => ({ ...c })),
+    runs: order.runs.map((run) => {
+      const { conditionCounts: _c, transitionCounts: _t, ...figures } = run.summary;
+      return { index: run.index, fileName: eventsFileName({ ...bidsLabelsOf(definition), run: run.index }), ...figures };
+    }),
+    lostPairs: order.lostPairs.map((p) => ({ ...p })),
+    summary: { ...order.summary, conditionCounts: [...order.summary.conditionCounts], transitionCounts: order.summary.transitionCounts.map((r) => [...r]) },
+  };
 }
 
 export { SequenceError };

@@ -6,35 +6,16 @@ import { insertAuditEvent } from '@/db/repositories/audit-events';
 import { getEdition as getEditionRow, getEditionSnapshot as getSnapshotRow } from '@/db/repositories/editions';
 import { deleteRunOrder as deleteRunOrderRow, getRunOrder as getRunOrderRow, insertRunOrder, listRunOrders as listRunOrderRows, updateRunOrder, type RunOrderListRow } from '@/db/repositories/run-orders';
 import { zipEntries } from '@/lib/pack/zip-entries';
-import { buildRunOrderOf, checkRunOrderDefinition, definitionFieldOf, needsBackgroundSearch } from '@/lib/run-order-build';
-import { eventsFileName } from '@/lib/sequence/events-file-name';
+import { bidsLabelsOf, buildRunOrderOf, checkRunOrderDefinition, definitionFieldOf, needsBackgroundSearch, runOrderResultOf } from '@/lib/run-order-build';
 import { runOrderFiles, type RunOrderFile } from '@/lib/sequence/run-order-files';
 import { SequenceError } from '@/lib/sequence/sequence-error';
 import type { RunOrder } from '@/lib/sequence/types';
 import type { Page, PageQuery } from '@/lib/schemas/common';
 import { EditionSnapshotSchema } from '@/lib/schemas/edition';
-import { RunOrderDefinitionSchema, type CreateRunOrderInput, type RunOrderDefinition, type RunOrderResultValue, type RunOrderValue } from '@/lib/schemas/run-order';
+import { RunOrderDefinitionSchema, type CreateRunOrderInput, type RunOrderDefinition, type RunOrderValue } from '@/lib/schemas/run-order';
 import { fieldErrorsOf } from '../http';
 import { getBoss, sendRunOrderJob } from '../jobs/boss';
 import { authorize, type LabActor } from './access';
-
-/** BIDS labels of a definition, as `eventsFileName` takes them (an empty session is left out). */
-function labelsOf(definition: RunOrderDefinition) {
-  const { subject, session, task } = definition.bids;
-  return { subject, task, ...(session ? { session } : {}) };
-}
-
-function resultOf(order: RunOrder, definition: RunOrderDefinition): RunOrderResultValue {
-  return {
-    conditions: order.conditions.map((c) => ({ ...c })),
-    runs: order.runs.map((run) => {
-      const { conditionCounts: _c, transitionCounts: _t, ...figures } = run.summary;
-      return { index: run.index, fileName: eventsFileName({ ...labelsOf(definition), run: run.index }), ...figures };
-    }),
-    lostPairs: order.lostPairs.map((p) => ({ ...p })),
-    summary: { ...order.summary, conditionCounts: [...order.summary.conditionCounts], transitionCounts: order.summary.transitionCounts.map((r) => [...r]) },
-  };
-}
 
 function toRunOrder(row: RunOrderListRow): RunOrderValue {
   const definition = RunOrderDefinitionSchema.parse(row.definition);
@@ -45,7 +26,7 @@ function toRunOrder(row: RunOrderListRow): RunOrderValue {
     definition,
     state: row.state,
     error: row.error,
-    result: row.result ? resultOf(row.result as RunOrder, definition) : null,
+    result: row.result ? runOrderResultOf(row.result as RunOrder, definition) : null,
     version: row.version,
     createdBy: row.created_by_name,
     createdAt: row.created_at.toISOString(),
@@ -158,7 +139,7 @@ export function runOrderFilesOf(row: RunOrderListRow): RunOrderFile[] {
   if (row.state !== 'ready' || !row.result) {
     throw conflict('run-order', row.state === 'failed' ? `This run order has no trials: ${row.error ?? 'its search failed.'}` : 'This run order is still being searched for; try again in a moment.');
   }
-  return runOrderFiles(row.result as RunOrder, labelsOf(RunOrderDefinitionSchema.parse(row.definition)));
+  return runOrderFiles(row.result as RunOrder, bidsLabelsOf(RunOrderDefinitionSchema.parse(row.definition)));
 }
 
 /** File-name-safe form of a run order's name, for its zip and its folder in a pack. */
