@@ -79,12 +79,13 @@ export function RunOrderForm({ lab, spaceId, number, layout, stimulusIds, existi
   });
   const { register, setValue, watch, formState } = form;
   const values = watch();
-  const definition = useDeferredValue(values.definition);
+  // watch() hands back the same objects, changed in place: key the preview on their content instead.
+  const definitionKey = useDeferredValue(JSON.stringify(values.definition));
   const errors = formState.errors.definition;
   const numberOpts = { valueAsNumber: true } as const;
 
   const preview = useMemo(() => {
-    const parsed = RunOrderDefinitionSchema.safeParse(definition);
+    const parsed = RunOrderDefinitionSchema.safeParse(JSON.parse(definitionKey));
     if (!parsed.success) return { kind: 'invalid' as const };
     if (needsBackgroundSearch(parsed.data, stimulusIds)) return { kind: 'background' as const, n: conditionCountOf(parsed.data, stimulusIds) };
     try {
@@ -93,7 +94,7 @@ export function RunOrderForm({ lab, spaceId, number, layout, stimulusIds, existi
       if (error instanceof SequenceError) return { kind: 'error' as const, message: error.message, field: definitionFieldOf(error), alternative: error.details.alternative };
       throw error;
     }
-  }, [definition, stimulusIds]);
+  }, [definitionKey, stimulusIds]);
 
   const save = useMutation({
     mutationFn: (v: CreateRunOrderInput) =>

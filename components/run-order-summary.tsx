@@ -44,7 +44,7 @@ export function RunOrderSummary({ result, tr, testId = 'run-order-summary' }: { 
         </Notice>
       ) : (
         <p className="text-xs text-graphite-soft" data-testid="flash-ok">
-          Flash check: at most {summary.peakOnsetRate} onsets in any second (WCAG 2.3.1 allows 3). Participants who are sensitive to flicker should still be told what they will see.
+          Flash check: at most {summary.peakOnsetRate} onset{summary.peakOnsetRate === 1 ? "" : "s"} in any second (WCAG 2.3.1 allows 3). Participants who are sensitive to flicker should still be told what they will see.
         </p>
       )}
       {lostPairs.length > 0 ? (
@@ -60,7 +60,7 @@ export function RunOrderSummary({ result, tr, testId = 'run-order-summary' }: { 
           </ul>
         </div>
       ) : null}
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Runs (scrolls sideways)">
         <table className="tabular min-w-[28rem] text-left text-xs" data-testid="run-table">
           <caption className="mb-1 text-left text-sm font-medium">Runs</caption>
           <thead>
@@ -86,7 +86,7 @@ export function RunOrderSummary({ result, tr, testId = 'run-order-summary' }: { 
         </table>
       </div>
       <div className="flex flex-wrap gap-8">
-        <div className="max-h-72 overflow-y-auto">
+        <div className="max-h-72 overflow-y-auto" tabIndex={0} role="region" aria-label="Trials per condition (scrolls)">
           <table className="tabular text-left text-xs" data-testid="condition-counts">
             <caption className="mb-1 text-left text-sm font-medium">Trials per condition</caption>
             <thead>

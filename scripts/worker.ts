@@ -1,5 +1,6 @@
-// `npm run worker`: a pack and run order worker process. It takes background type-1 index-1 searches, and pack jobs from the queue in PostgreSQL and renders them
-// with a worker-thread pool across all cores, uploading the zips to the object store. Run as many as you like,
+// `npm run worker`: a pack and run order worker process. It takes pack jobs from the queue in PostgreSQL and renders
+// them with a worker-thread pool across all cores, uploading the zips to the object store; and it runs the background
+// type-1 index-1 searches of run orders (more than 12 conditions). Run as many as you like,
 // on as many machines as share the database (DATABASE_URL) and the object store (S3_*).
 import { createServer } from 'node:http';
 import { createDb } from '@/db/client';
