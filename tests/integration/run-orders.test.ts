@@ -148,6 +148,24 @@ describe('run orders: API, roles, validation, zip, background search, packs', ()
     expect(order.result!.runs.reduce((s, r) => s + r.duration, 0)).toBeCloseTo(order.result!.summary.duration, 9);
   });
 
+  it('stored dummy volumes shift the onsets; cutting one sequence into runs lists the lost pairs', async () => {
+    const timing = { ...DEFAULT_RUN_ORDER_DEFINITION.timing, dummyVolumes: 3, dummyVolumesStored: true };
+    const stored = (await create(def({ timing }))).body as RunOrderValue;
+    const zip = await JSZip.loadAsync(new Uint8Array(await (await download(stored.id)).arrayBuffer()));
+    // BIDS: onsets count from the first stored volume, so 3 stored dummies of TR 2 s put the first trial at 6 s.
+    expect(tsvRows(await zip.file('sub-01_task-shapes_run-1_events.tsv')!.async('string'))[1]![0]).toBe('6.000');
+    expect(stored.result!.summary.acquiredVolumes).toBe(stored.result!.summary.volumes);
+    const discarded = (await create(def({ timing: { ...timing, dummyVolumesStored: false } }))).body as RunOrderValue;
+    expect(discarded.result!.summary.acquiredVolumes).toBe(discarded.result!.summary.volumes + 3);
+
+    const cut = (await create(def({ runs: 3, runMode: 'cut' }))).body as RunOrderValue;
+    // 37 trials in 3 runs (13, 12, 12): two cuts, each losing one ordered pair, named by the conditions' ids.
+    expect(cut.result!.runs.map((r) => r.trials)).toEqual([13, 12, 12]);
+    expect(cut.result!.lostPairs.map((p) => p.afterRun)).toEqual([1, 2]);
+    for (const p of cut.result!.lostPairs) expect(cut.result!.conditions[p.from]!.id).toBe(p.fromId);
+    expect(cut.result!.summary.isTransitionFlat).toBe(false);
+  });
+
   it('refuses bad input with field-level messages, and stores nothing', async () => {
     const before = (await getDb().selectFrom('run_orders').select((eb) => eb.fn.countAll<string>().as('n')).where('lab_id', '=', lab.id).executeTakeFirstOrThrow()).n;
     // n = 3 for type-1 index-1: offers the de Bruijn cycle.
