@@ -74,6 +74,28 @@ test('an Experimenter builds a run order for the demo edition and downloads its 
   expect(sidecar.onset.Units).toBe('s');
 });
 
+test('a type-1 index-1 order of 16 conditions is searched by the worker, and the page follows it', async ({ page }) => {
+  test.setTimeout(90_000);
+  await new SignInPage(page).signInAndLand(demoUser('owner').email, DEMO_PASSWORD, /\/labs\/halden-form/);
+  await page.goto(`/labs/${LAB}/spaces`);
+  await page.getByTestId('space-link-Pebble rings (demo)').click();
+  await page.getByTestId('editions-link').click();
+  await page.getByTestId('edition-link-1').click();
+  const orders = new RunOrdersPage(page);
+  await orders.openFromEdition();
+  await page.getByTestId('selection-rings').check();
+  await page.getByTestId('choice-2').check();
+  await page.getByTestId('include-centre').uncheck();
+  await orders.chooseSequence('type1-index1');
+  await expect(page.getByTestId('condition-count')).toHaveText('16 conditions');
+  await expect(page.getByTestId('background-note')).toContainText('searched for in the background');
+  await orders.save(`Ring 2 search ${Date.now() % 100000}`);
+  // 16² + 1 trials once the worker has found the sequence.
+  await expect(page.getByTestId('run-order-summary').getByTestId('summary-trials')).toHaveText('257', { timeout: 30_000 });
+  await expect(page.getByTestId('transition-flatness')).toHaveText('Flat: every ordered pair follows 1 time.');
+  await expect(page.getByTestId('download-run-order')).toBeVisible();
+});
+
 test('a Reviewer reads the seeded run order and downloads it, but gets no form', async ({ page }) => {
   await new SignInPage(page).signInAndLand(demoUser('reviewer').email, DEMO_PASSWORD, /\/labs\/halden-form/);
   await page.goto(`/labs/${LAB}/spaces`);

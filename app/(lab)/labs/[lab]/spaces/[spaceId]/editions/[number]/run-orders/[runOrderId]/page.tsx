@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { RefreshWhile } from '@/components/refresh-while';
 import { RunOrderActions } from '@/components/run-order-actions';
 import { RunOrderForm } from '@/components/run-order-form';
 import { RunOrderSummary } from '@/components/run-order-summary';
@@ -63,7 +64,8 @@ export default async function RunOrderPage({ params }: { params: Promise<{ lab: 
       </div>
       {order.state === 'queued' || order.state === 'running' ? (
         <Notice tone="info" testId="run-order-searching">
-          The type-1 index-1 sequence is being searched for in the background. Reload this page in a moment.
+          The type-1 index-1 sequence is being searched for in the background; this page updates when it is found or the time runs out.
+          <RefreshWhile active />
         </Notice>
       ) : null}
       {order.state === 'failed' ? (
