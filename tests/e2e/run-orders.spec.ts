@@ -117,3 +117,25 @@ test('a Reviewer reads the seeded run order and downloads it, but gets no form',
   // Null events have no stimulus file: n/a (BIDS).
   expect(tsv).toMatch(/\tnull\tn\/a\n/);
 });
+
+test('the make-pack form sends the chosen run orders with the pack request', async ({ page }) => {
+  await new SignInPage(page).signInAndLand(demoUser('experimenter').email, DEMO_PASSWORD, /\/labs\/halden-form/);
+  await page.goto(`/labs/${LAB}/spaces`);
+  await page.getByTestId('space-link-Pebble rings (demo)').click();
+  await page.getByTestId('editions-link').click();
+  await page.getByTestId('edition-link-1').click();
+  const box = page.getByRole('checkbox', { name: 'Pilot scan, ring 3' });
+  await expect(box).toBeVisible();
+  const id = (await box.getAttribute('value'))!;
+  await box.check();
+  // The request is answered here, so no pack is built: only what the form sends is checked.
+  let sent: { runOrderIds?: string[] } | null = null;
+  await page.route('**/editions/1/packs', async (route) => {
+    sent = route.request().postDataJSON() as { runOrderIds?: string[] };
+    await route.fulfill({ status: 400, contentType: 'application/problem+json', body: JSON.stringify({ type: '/problems/validation/pack', title: 'The request is not valid', status: 400, detail: 'Stopped by the test.', code: 'validation:pack' }) });
+  });
+  await page.getByTestId('make-pack').click();
+  await expect(page.getByTestId('make-pack-error')).toContainText('Stopped by the test.');
+  expect(sent).toEqual(expect.objectContaining({ runOrderIds: [id] }));
+  await expectNoSeriousA11yViolations(page);
+});
