@@ -18,6 +18,7 @@ import { Notice } from './ui/notice';
 interface FormValues {
   displayProfileId: string;
   render: RenderOptionsValue;
+  runOrderIds: string[];
 }
 
 /** Measured on this kind of machine: about 60 stimuli per second per pack worker, all stages included. */
@@ -32,11 +33,11 @@ function estimate(stimuli: number, canvasPx: number): { megabytes: number; secon
 }
 
 /** "Make a pack" of an edition: a display profile and render options, checked live, with an estimate. */
-export function MakePackForm({ lab, spaceId, number, stimulusCount, profiles }: { lab: string; spaceId: string; number: number; stimulusCount: number; profiles: DisplayProfileValue[] }) {
+export function MakePackForm({ lab, spaceId, number, stimulusCount, profiles, runOrders = [] }: { lab: string; spaceId: string; number: number; stimulusCount: number; profiles: DisplayProfileValue[]; runOrders?: { id: string; name: string }[] }) {
   const router = useRouter();
   const form = useForm<FormValues>({
     resolver: zodResolver(CreatePackSchema) as never,
-    defaultValues: { displayProfileId: profiles[0]?.id ?? '', render: DEFAULT_RENDER_OPTIONS },
+    defaultValues: { displayProfileId: profiles[0]?.id ?? '', render: DEFAULT_RENDER_OPTIONS, runOrderIds: [] },
   });
   const profileId = form.watch('displayProfileId');
   const render = form.watch('render');
@@ -74,6 +75,17 @@ export function MakePackForm({ lab, spaceId, number, stimulusCount, profiles }: 
         </select>
         {form.formState.errors.displayProfileId ? <span className="mt-1 block text-xs text-danger">{form.formState.errors.displayProfileId.message}</span> : null}
       </label>
+      {runOrders.length > 0 ? (
+        <fieldset className="space-y-1">
+          <legend className="font-medium">Run orders to include under sequences/</legend>
+          {runOrders.map((o) => (
+            <label key={o.id} className="flex items-center gap-1.5">
+              <input type="checkbox" value={o.id} {...form.register('runOrderIds')} data-testid={`pack-run-order-${o.id}`} />
+              {o.name}
+            </label>
+          ))}
+        </fieldset>
+      ) : null}
       <RenderCheckPanel profile={profile} options={render} onChange={(o) => form.setValue('render', o, { shouldValidate: true })} />
       {guess ? (
         <p className="tabular text-xs text-graphite-soft" data-testid="pack-estimate">

@@ -185,6 +185,8 @@ export interface PacksTable {
   sha256: string | null;
   stimulus_count: number | null;
   manifest: ColumnType<unknown | null, string | null, string | null>;
+  /** Run order files attached under `sequences/`: `{ name, text }[]`, copied when the pack was asked for. */
+  sequences: ColumnType<unknown, string | undefined, string>;
   created_by: string | null;
   created_at: Generated<Date>;
   started_at: Date | null;
@@ -238,6 +240,25 @@ export interface StudiesTable {
   closed_at: Date | null;
 }
 
+export type RunOrderState = 'ready' | 'queued' | 'running' | 'failed';
+
+/** A run order of an edition: its definition (with the seed) and, once built, the order itself. */
+export interface RunOrdersTable {
+  id: Generated<string>;
+  lab_id: string;
+  edition_id: string;
+  name: string;
+  definition: ColumnType<unknown, string, string>;
+  state: ColumnType<RunOrderState, RunOrderState | undefined, RunOrderState>;
+  error: string | null;
+  job_id: string | null;
+  result: ColumnType<unknown | null, string | null, string | null>;
+  version: Generated<number>;
+  created_by: string | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
@@ -255,6 +276,7 @@ export interface Database {
   packs: PacksTable;
   lab_api_tokens: LabApiTokensTable;
   studies: StudiesTable;
+  run_orders: RunOrdersTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -271,3 +293,4 @@ export type DisplayProfileRow = Selectable<DisplayProfilesTable>;
 export type PackRow = Selectable<PacksTable>;
 export type LabApiTokenRow = Selectable<LabApiTokensTable>;
 export type StudyRow = Selectable<StudiesTable>;
+export type RunOrderRow = Selectable<RunOrdersTable>;

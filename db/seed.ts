@@ -16,6 +16,10 @@ import { ENGINE_VERSION } from '@/lib/shape/engine-version';
 import { DEFAULT_CATEGORISATION } from '@/lib/schemas/study';
 import { checkStudyDesign, type StudyDesign } from '@/lib/study';
 import { insertStudy, listStudies } from './repositories/studies';
+import { buildRunOrderOf } from '@/lib/run-order-build';
+import { DEFAULT_RUN_ORDER_DEFINITION, RunOrderDefinitionSchema } from '@/lib/schemas/run-order';
+import { getEditionSnapshot as getSnapshotRow } from './repositories/editions';
+import { insertRunOrder, listRunOrders } from './repositories/run-orders';
 
 /**
  * The demo lab, an invented scenario: the Halden Form Perception Group is preparing a study on how people
@@ -54,6 +58,18 @@ export const DEMO_SEED_SHAPES: readonly { name: string; descriptor: ShapeDescrip
 ];
 
 /** The demo lab's space: Rings 5 × 16 + centre around the pebble, sweeping its 2nd and a new 4th harmonic. */
+export const DEMO_RUN_ORDER = {
+  name: 'Pilot scan, ring 3',
+  definition: {
+    ...DEFAULT_RUN_ORDER_DEFINITION,
+    conditions: { selection: 'rings' as const, indices: [3], includeCentre: false, nullEvents: true },
+    timing: { trialDuration: 1, iti: { kind: 'uniform' as const, min: 2, max: 4 }, tr: 2, dummyVolumes: 4, dummyVolumesStored: false },
+    runs: 2,
+    seed: 20260914,
+    bids: { subject: 'pilot01', session: '', task: 'shapes' },
+  },
+};
+
 export const DEMO_SPACE = {
   name: 'Pebble rings (demo)',
   seed: 'Harbour pebble',
@@ -177,6 +193,17 @@ export async function seedDemo(db: Db): Promise<string> {
       const experimenter = await findUserByEmail(trx, DEMO_USERS.find((u) => u.role === 'experimenter')!.email);
       await insertStudy(trx, lab.id, experimenter!.id, { name: DEMO_STUDY.name, ...DEMO_STUDY.texts }, { editionId: edition.id, design: DEMO_STUDY.design, editionWarning: null });
       created.push(`study ${DEMO_STUDY.name}`);
+    }
+
+    // One invented run order: ring 3 (16 stimuli) plus null events, a de Bruijn cycle per run, jittered ITIs.
+    const edition1 = (await listEditions(trx, lab.id, space.id, { limit: 100 })).find((e) => e.number === 1)!;
+    if ((await listRunOrders(trx, lab.id, edition1.id, { limit: 1 })).length === 0) {
+      const experimenter = await findUserByEmail(trx, DEMO_USERS.find((u) => u.role === 'experimenter')!.email);
+      const definition = RunOrderDefinitionSchema.parse({ ...DEMO_RUN_ORDER.definition });
+      const ids = ((await getSnapshotRow(trx, edition1.id)) as { stimuli: { id: string }[] }).stimuli.map((x) => x.id);
+      const result = buildRunOrderOf(definition, ids);
+      await insertRunOrder(trx, { labId: lab.id, editionId: edition1.id, name: DEMO_RUN_ORDER.name, definition, state: 'ready', result, createdBy: experimenter!.id });
+      created.push(`run order ${DEMO_RUN_ORDER.name}`);
     }
 
     if ((await listDisplayProfiles(trx, lab.id, { limit: 100 })).length === 0) {

@@ -7,6 +7,7 @@ import * as m20261202080000 from './20261202080000_create_boundaries_and_edition
 import * as m20261202090000 from './20261202090000_create_display_profiles';
 import * as m20261202100000 from './20261202100000_create_packs';
 import * as m20261202110000 from './20261202110000_create_studies';
+import * as m20261202120000 from './20261202120000_create_run_orders';
 import * as m20261202130000 from './20261202130000_create_lab_api_tokens';
 
 /**
@@ -22,5 +23,6 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202090000_create_display_profiles': m20261202090000,
   '20261202100000_create_packs': m20261202100000,
   '20261202110000_create_studies': m20261202110000,
+  '20261202120000_create_run_orders': m20261202120000,
   '20261202130000_create_lab_api_tokens': m20261202130000,
 };

@@ -1,5 +1,6 @@
-// `npm run worker`: a pack worker process. It takes pack jobs from the queue in PostgreSQL and renders them
-// with a worker-thread pool across all cores, uploading the zips to the object store. Run as many as you like,
+// `npm run worker`: a pack and run order worker process. It takes pack jobs from the queue in PostgreSQL and renders
+// them with a worker-thread pool across all cores, uploading the zips to the object store; and it runs the background
+// type-1 index-1 searches of run orders (more than 12 conditions). Run as many as you like,
 // on as many machines as share the database (DATABASE_URL) and the object store (S3_*).
 import { createServer } from 'node:http';
 import { createDb } from '@/db/client';
@@ -7,6 +8,7 @@ import { getEnv } from '@/lib/server/env';
 import { startBoss } from '@/lib/server/jobs/boss';
 import { startPackWorker } from '@/lib/server/jobs/pack-worker';
 import { PngPool } from '@/lib/server/jobs/png-pool';
+import { startRunOrderWorker } from '@/lib/server/jobs/run-order-worker';
 
 const env = getEnv();
 const db = createDb(env.DATABASE_URL, 4);
@@ -14,7 +16,8 @@ const pool = new PngPool(env.PACK_RENDER_THREADS);
 await pool.warm();
 const boss = await startBoss({ supervise: true });
 const stopWorking = await startPackWorker({ db, boss, pool });
-console.log(`[worker] taking pack jobs with ${pool.size} render threads`);
+const stopSearching = await startRunOrderWorker({ db, boss });
+console.log(`[worker] taking pack jobs with ${pool.size} render threads, and run order searches`);
 
 // An optional health port, for process supervisors and the e2e harness.
 const healthPort = Number(process.env.WORKER_HEALTH_PORT ?? 0);
@@ -32,6 +35,7 @@ async function stop(signal: string) {
   console.log(`[worker] ${signal}: finishing the job in hand, then stopping`);
   health?.close();
   await stopWorking();
+  await stopSearching();
   await boss.stop({ graceful: true, wait: true });
   await pool.close();
   await db.destroy();

@@ -3,7 +3,7 @@ import type { DbHandle } from '../client';
 import type { PackRow, PackState } from '../database';
 import { decodeCursor } from '../pagination';
 
-export type PackListRow = Omit<PackRow, 'manifest'> & {
+export type PackListRow = Omit<PackRow, 'manifest' | 'sequences'> & {
   space_id: string;
   space_name: string;
   edition_number: number;
@@ -79,9 +79,16 @@ export async function getPackManifest(db: DbHandle, labId: string, id: string): 
   return row.manifest;
 }
 
+/** The run order files attached to a pack (`{ name, text }[]`, names inside `sequences/`). */
+export async function getPackSequences(db: DbHandle, id: string): Promise<{ name: string; text: string }[]> {
+  const row = await db.selectFrom('packs').select('sequences').where('id', '=', id).executeTakeFirst();
+  if (!row) throw notFound('pack', 'No such pack in this lab.');
+  return row.sequences as { name: string; text: string }[];
+}
+
 export function insertPack(
   db: DbHandle,
-  p: { labId: string; editionId: string; displayProfileId: string; profile: unknown; renderOptions: unknown; optionsHash: string; createdBy: string },
+  p: { labId: string; editionId: string; displayProfileId: string; profile: unknown; renderOptions: unknown; optionsHash: string; createdBy: string; sequences?: readonly { name: string; text: string }[] },
 ): Promise<{ id: string }> {
   return db
     .insertInto('packs')
@@ -92,6 +99,7 @@ export function insertPack(
       profile: JSON.stringify(p.profile),
       render_options: JSON.stringify(p.renderOptions),
       options_hash: p.optionsHash,
+      sequences: JSON.stringify(p.sequences ?? []),
       created_by: p.createdBy,
     })
     .returning('id')

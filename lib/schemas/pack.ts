@@ -16,6 +16,8 @@ export const PACK_STATE_LABELS: Record<PackStateValue, string> = {
 export const CreatePackSchema = z.object({
   displayProfileId: z.uuid('Choose a display profile'),
   render: RenderOptionsSchema,
+  /** Run orders of the same edition whose BIDS files go into the pack under `sequences/<run order>/`. */
+  runOrderIds: z.array(z.uuid('Choose a run order')).max(20, 'At most 20 run orders per pack').optional(),
 });
 export type CreatePackInput = z.input<typeof CreatePackSchema>;
 

@@ -68,3 +68,4 @@ export { peakOnsetRate } from './peak-onset-rate';
 export { toEventsTsv, type EventsTsvOptions } from './to-events-tsv';
 export { toEventsJson } from './to-events-json';
 export { eventsFileName, type EventsFileNameParts } from './events-file-name';
+export { runOrderFiles, type RunOrderFile } from './run-order-files';

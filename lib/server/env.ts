@@ -49,6 +49,8 @@ const EnvSchema = z.object({
   /** Pack jobs: seconds before a job whose worker went silent is retried, and how many tries. */
   PACK_JOB_EXPIRE_SECONDS: z.coerce.number().int().min(1).default(300),
   PACK_JOB_RETRIES: z.coerce.number().int().min(0).max(10).default(2),
+  /** Time budget of a background type-1 index-1 search (n > 12), in seconds (measured: n = 30 ≈ 0.7 s, n = 40 ≈ 5 s). */
+  RUN_ORDER_SEARCH_BUDGET_SECONDS: z.coerce.number().min(0).max(3600).default(120),
   /** PNG render threads per worker process; default: one per core. */
   PACK_RENDER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
 });

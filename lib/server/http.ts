@@ -56,6 +56,8 @@ export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z
   body?: B;
   response: R;
   successStatus?: 200 | 201 | 202 | 204;
+  /** The answer is a file of this media type (e.g. `application/zip`, `text/csv`), not JSON; documented as such. */
+  produces?: string;
   /** The answer carries an ETag and is 304 when If-None-Match names it (documented as such). */
   etag?: true;
   /** Largest accepted body in bytes (default 256 KiB), enforced while the stream is read. */

@@ -41,7 +41,11 @@ function responsesOf(route: AnyRouteSpec): JsonSchema {
   const success =
     status === '204'
       ? { description: 'Done; no body' }
-      : { description: route.summary, ...(route.etag ? { headers: etagHeader } : {}), content: { 'application/json': { schema: jsonSchemaOf(route.response, 'output') } } };
+      : {
+          description: route.summary,
+          ...(route.etag ? { headers: etagHeader } : {}),
+          content: route.produces ? { [route.produces]: { schema: { type: 'string', contentMediaType: route.produces } } } : { 'application/json': { schema: jsonSchemaOf(route.response, 'output') } },
+        };
   const errors: Record<string, JsonSchema> = { '400': PROBLEM, '500': PROBLEM };
   if (route.etag) errors['304'] = { description: 'Not modified: the If-None-Match ETag is still current', headers: etagHeader };
   if (route.access.kind !== 'public') Object.assign(errors, { '401': PROBLEM, '403': PROBLEM, '429': PROBLEM });

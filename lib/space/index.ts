@@ -94,3 +94,4 @@ export { anisotropyFromRates } from './anisotropy-from-rates';
 export { anisotropyIndex } from './anisotropy-index';
 export { auditSpace, type AuditOptions } from './audit-space';
 export { equalizeSpace, type EqualizeOptions } from './equalize-space';
+export { selectLayoutStimuli, type LayoutSelection } from './select-layout-stimuli';

@@ -12,3 +12,4 @@ export * from './pack-checks';
 export * from './studies';
 export * from './api-tokens';
 export * from './openapi';
+export * from './run-orders';

@@ -10,6 +10,20 @@ export interface PackJobData {
   packId: string;
 }
 
+/** The queue of type-1 index-1 searches too long to run inline (n > 12). */
+export const RUN_ORDER_QUEUE = 'run-order-search';
+
+export interface RunOrderJobData {
+  runOrderId: string;
+  /** The definition version the job searches for; a later edit makes the job a no-op. */
+  version: number;
+}
+
+/** A search is deterministic: a retry after a timeout would time out again, so only a dead worker's job is retried. */
+export function runOrderQueueOptions() {
+  return { name: RUN_ORDER_QUEUE, retryLimit: 1, retryDelay: 2, expireInSeconds: 600 };
+}
+
 const holder = globalThis as unknown as { __epicycleBoss?: Promise<PgBoss> };
 
 /** The queue's retry policy: a silent worker's job expires and is retried by another worker. */
@@ -27,6 +41,7 @@ export async function startBoss({ supervise, maintenanceIntervalSeconds = 10 }: 
   boss.on('error', (error: Error) => logEvent('error', 'job queue error', { error: error.message }));
   await boss.start();
   await boss.createQueue(PACK_QUEUE, packQueueOptions());
+  await boss.createQueue(RUN_ORDER_QUEUE, runOrderQueueOptions());
   return boss;
 }
 
@@ -43,5 +58,12 @@ export function getBoss(): Promise<PgBoss> {
 export async function sendPackJob(boss: PgBoss, data: PackJobData): Promise<string> {
   const id = await boss.send(PACK_QUEUE, data, packQueueOptions());
   if (!id) throw new Error(`the job queue "${PACK_QUEUE}" refused the job (does the queue exist?)`);
+  return id;
+}
+
+/** Queues a background type-1 index-1 search; throws when the queue refuses it. */
+export async function sendRunOrderJob(boss: PgBoss, data: RunOrderJobData): Promise<string> {
+  const id = await boss.send(RUN_ORDER_QUEUE, data, runOrderQueueOptions());
+  if (!id) throw new Error(`the job queue "${RUN_ORDER_QUEUE}" refused the job (does the queue exist?)`);
   return id;
 }

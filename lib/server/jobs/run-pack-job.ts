@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Db } from '@/db/client';
 import { getEditionSnapshot } from '@/db/repositories/editions';
-import { getPack, isCancelRequested, updatePack } from '@/db/repositories/packs';
+import { getPack, getPackSequences, isCancelRequested, updatePack } from '@/db/repositories/packs';
 import { buildPack } from '@/lib/pack/build-pack';
 import type { PackInput, PackPngRequest, PackStage } from '@/lib/pack/types';
 import type { DisplayProfile, RenderOptions } from '@/lib/render/types';
@@ -77,6 +77,7 @@ export async function runPackJob(db: Db, packId: string, ctx: PackJobContext): P
       profile: row.profile as DisplayProfile,
       render: row.render_options as RenderOptions,
       versions: { product: packageJson.version, engine: snapshot.engineVersion },
+      sequences: await getPackSequences(db, packId),
     };
     const pack = await buildPack(input, {
       renderPng: (request) => {

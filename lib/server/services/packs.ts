@@ -18,6 +18,7 @@ import { getEnv } from '../env';
 import { getBoss, PACK_QUEUE, sendPackJob } from '../jobs/boss';
 import { authorize, type LabActor } from './access';
 import { getCoreDisplayProfile } from './display-profiles';
+import { packSequencesOf } from './run-orders';
 
 const UNIQUE_VIOLATION = '23505';
 
@@ -45,8 +46,10 @@ function toPack(row: PackListRow): PackValue {
 }
 
 /** The idempotency key of a pack: the same edition, profile, options and engine always give the same pack. */
-export function packOptionsHash(editionHash: string, profile: DisplayProfile, render: RenderOptionsValue): string {
-  return contentHash({ edition: editionHash, profile: { ...profile }, render: { ...render }, engine: ENGINE_VERSION });
+export function packOptionsHash(editionHash: string, profile: DisplayProfile, render: RenderOptionsValue, sequences: readonly { name: string; text: string }[] = []): string {
+  // Without attached run orders the key is what it always was, so earlier packs are still found again.
+  const attached = sequences.length > 0 ? { sequences: sequences.map((f) => ({ name: f.name, text: f.text })) } : {};
+  return contentHash({ edition: editionHash, profile: { ...profile }, render: { ...render }, engine: ENGINE_VERSION, ...attached });
 }
 
 async function queue(db: Db, packId: string): Promise<void> {
@@ -76,7 +79,8 @@ export async function createPack(db: Db, actor: LabActor, spaceId: string, numbe
     for (const i of check.errors) (fields[`render.${i.field}`] ??= []).push(i.message);
     throw validationError('pack', check.errors.map((i) => i.message).join(' '), fields);
   }
-  const optionsHash = packOptionsHash(edition.content_hash, profile, input.render);
+  const sequences = input.runOrderIds?.length ? await packSequencesOf(db, actor, edition.id, input.runOrderIds) : [];
+  const optionsHash = packOptionsHash(edition.content_hash, profile, input.render, sequences);
   const existing = await findPackByOptions(db, edition.id, optionsHash);
   if (existing) {
     if (existing.state === 'failed' || existing.state === 'cancelled') return { pack: await retryPack(db, actor, existing.id), reused: true };
@@ -85,14 +89,14 @@ export async function createPack(db: Db, actor: LabActor, spaceId: string, numbe
   let id: string;
   try {
     id = await db.transaction().execute(async (trx) => {
-      const { id } = await insertPack(trx, { labId: actor.labId, editionId: edition.id, displayProfileId: input.displayProfileId, profile, renderOptions: input.render, optionsHash, createdBy: actor.userId });
+      const { id } = await insertPack(trx, { labId: actor.labId, editionId: edition.id, displayProfileId: input.displayProfileId, profile, renderOptions: input.render, optionsHash, createdBy: actor.userId, sequences });
       await insertAuditEvent(trx, {
         labId: actor.labId,
         actorUserId: actor.userId,
         action: 'pack.create',
         subjectType: 'pack',
         subjectId: id,
-        details: { space: edition.space_name, edition: number, profile: profile.name, sizeDeg: input.render.sizeDeg },
+        details: { space: edition.space_name, edition: number, profile: profile.name, sizeDeg: input.render.sizeDeg, runOrders: input.runOrderIds?.length ?? 0 },
       });
       return id;
     });

@@ -8,6 +8,7 @@ import { getDb } from '@/lib/server/db';
 import { orNotFound, requireLabPageActor, requireUuidSegment } from '@/lib/server/page-context';
 import { can } from '@/lib/server/policy';
 import { getEdition, getEditionSnapshot, listComments } from '@/lib/server/services/editions';
+import { listRunOrders } from '@/lib/server/services/run-orders';
 
 export const metadata: Metadata = { title: 'Edition review' };
 
@@ -26,6 +27,7 @@ export default async function EditionPage({ params }: { params: Promise<{ lab: s
   const isAuthor = edition.author?.id === actor.userId;
   const canPack = can(actor.role, 'pack:create');
   const profiles = canPack ? (await listDisplayProfiles(db, actor, { limit: 200 })).items : [];
+  const runOrders = canPack ? (await listRunOrders(db, actor, spaceId, number, { limit: 100 })).items.filter((o) => o.state === 'ready').map((o) => ({ id: o.id, name: o.name })) : [];
   return (
     <>
       <p className="mb-4 text-sm text-graphite-muted">
@@ -41,6 +43,11 @@ export default async function EditionPage({ params }: { params: Promise<{ lab: s
           Editions
         </Link>{' '}
         / {number}
+        <span className="ml-4">
+          <Link href={`/labs/${lab}/spaces/${spaceId}/editions/${number}/run-orders`} className="text-accent underline underline-offset-2" data-testid="edition-run-orders">
+            Run orders
+          </Link>
+        </span>
       </p>
       <EditionReview
         lab={lab}
@@ -58,7 +65,7 @@ export default async function EditionPage({ params }: { params: Promise<{ lab: s
       ) : null}
       {canPack ? (
         <div className="mt-8 max-w-4xl">
-          <MakePackForm lab={lab} spaceId={spaceId} number={number} stimulusCount={edition.stimulusCount} profiles={profiles} />
+          <MakePackForm lab={lab} spaceId={spaceId} number={number} stimulusCount={edition.stimulusCount} profiles={profiles} runOrders={runOrders} />
         </div>
       ) : null}
     </>
