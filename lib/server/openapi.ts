@@ -41,11 +41,14 @@ function responsesOf(route: AnyRouteSpec): JsonSchema {
   const success =
     status === '204'
       ? { description: 'Done; no body' }
-      : { description: route.summary, ...(route.etag ? { headers: etagHeader } : {}), content: { 'application/json': { schema: jsonSchemaOf(route.response, 'output') } } };
+      : route.download
+        ? { description: route.summary, content: { [route.download.contentType]: { schema: { type: 'string' } } } }
+        : { description: route.summary, ...(route.etag ? { headers: etagHeader } : {}), content: { 'application/json': { schema: jsonSchemaOf(route.response, 'output') } } };
   const errors: Record<string, JsonSchema> = { '400': PROBLEM, '500': PROBLEM };
   if (route.etag) errors['304'] = { description: 'Not modified: the If-None-Match ETag is still current', headers: etagHeader };
   if (route.access.kind !== 'public') Object.assign(errors, { '401': PROBLEM, '403': PROBLEM, '429': PROBLEM });
   if (route.access.kind === 'lab') errors['404'] = PROBLEM;
+  for (const status of route.errors ?? []) errors[String(status)] = PROBLEM;
   return { [status]: success, ...errors };
 }
 

@@ -10,5 +10,6 @@ export * from './display-profiles';
 export * from './packs';
 export * from './pack-checks';
 export * from './studies';
+export * from './participant-sessions';
 export * from './api-tokens';
 export * from './openapi';
