@@ -35,7 +35,19 @@ test('a participant completes a study through a network cut and a reload; every 
   const context = await browser.newContext();
   const take = await context.newPage();
   const participant = new ParticipantPages(take);
+  // The participant page's JavaScript, as the browser fetches it (uncompressed bytes).
+  const scripts = new Map<string, number>();
+  take.on('response', async (r) => {
+    if (r.request().resourceType() === 'script') scripts.set(r.url(), (await r.body().catch(() => Buffer.alloc(0))).length);
+  });
   await take.goto(new URL(opened.inviteUrl).pathname);
+  await take.waitForLoadState('networkidle');
+  const jsBytes = [...scripts.values()].reduce((a, b) => a + b, 0);
+  console.log(`participant page JS: ${scripts.size} files, ${(jsBytes / 1024).toFixed(1)} KiB`);
+  // No lab UI comes along: no lab navigation, and the scripts stay within the budget (measured 494 KiB, almost all
+  // of it the Next and React runtime every page shares; the page's own chunk is about 21 KiB).
+  await expect(take.getByTestId('nav-norming-studies')).toHaveCount(0);
+  expect(jsBytes).toBeLessThan(560 * 1024);
   await expectNoSeriousA11yViolations(take);
   await take.screenshot({ path: 'test-results/screens/join-consent.png', fullPage: true });
   await participant.consent();
@@ -46,6 +58,8 @@ test('a participant completes a study through a network cut and a reload; every 
   await participant.begin();
 
   // Midway the network to the responses endpoint is cut for 10 trials, then restored.
+  await expect(take.getByTestId('answer-left')).toBeVisible();
+  await take.screenshot({ path: 'test-results/screens/join-trial.png' });
   await participant.answerWith('f', (pos) => pos >= 4);
   let refused = 0;
   await take.route('**/responses', (route) => {

@@ -49,9 +49,13 @@ export default async function StudyPage({ params }: { params: Promise<{ lab: str
           </Notice>
         </div>
       ) : null}
+      {sessions ? (
+        <div className="mb-10">
+          <StudySessionsMonitor lab={lab} studyId={studyId} initial={sessions} canManage={can(actor.role, 'session:manage')} />
+        </div>
+      ) : null}
       <div className="grid gap-8 xl:grid-cols-[1fr_24rem]">
         <div className="min-w-0 space-y-10">
-          {sessions ? <StudySessionsMonitor lab={lab} studyId={studyId} initial={sessions} canManage={can(actor.role, 'session:manage')} /> : null}
           <StudyPlanPreview lab={lab} study={study} />
           <section aria-labelledby="setup-heading">
             <h2 id="setup-heading" className="mb-4 text-lg font-semibold">
