@@ -8,7 +8,7 @@ import { makeStimulusSource, type SessionEdition } from '@/lib/take/stimulus-con
 import { ParticipantScreenCheck, type ScreenCheck } from './participant-screen-check';
 
 type Trial = ParticipantSessionValue['trials'][number];
-type Phase = 'closed' | 'consent' | 'screen' | 'instructions' | 'running' | 'break' | 'finishing' | 'done' | 'withdrawn' | 'error';
+type Phase = 'closed' | 'consent' | 'screen' | 'recheck' | 'instructions' | 'running' | 'break' | 'finishing' | 'done' | 'withdrawn' | 'error';
 
 const RATINGS = [1, 2, 3, 4, 5, 6, 7] as const;
 /** How long practice feedback stays up. */
@@ -79,13 +79,15 @@ export function ParticipantSession({ token, study }: { token: string; study: Joi
       }
       const s = (await res.json()) as ParticipantSessionValue;
       const q = openQueue(code);
+      const saved = localStorage.getItem(`${storageKey}:screen`);
+      if (saved) setScreen(JSON.parse(saved) as ScreenCheck);
       setSession(s);
       setCount({ stored: s.stored, planned: s.planned });
       const done = new Set([...s.answered, ...q.pendingIndices()]);
       const next = s.trials.findIndex((t) => !done.has(t.index));
       setPosition(next === -1 ? s.trials.length : next);
       setFinishCode(s.finishCode);
-      setPhase(s.finishCode ? 'done' : next === -1 ? 'finishing' : 'instructions');
+      setPhase(s.finishCode ? 'done' : next === -1 ? 'finishing' : saved ? 'instructions' : 'recheck');
     })();
   }, [base, openQueue, storageKey]);
 
@@ -117,6 +119,7 @@ export function ParticipantSession({ token, study }: { token: string; study: Joi
       return;
     }
     localStorage.setItem(storageKey, body.sessionCode);
+    localStorage.setItem(`${storageKey}:screen`, JSON.stringify(check));
     openQueue(body.sessionCode);
     setSession(body);
     setCount({ stored: 0, planned: body.planned });
@@ -124,11 +127,8 @@ export function ParticipantSession({ token, study }: { token: string; study: Joi
     setPhase('instructions');
   };
 
-  const pxPerDeg = useMemo(() => {
-    const s = screen ?? session ? (screen ?? { pxPerMm: 3.78, viewingDistanceCm: 57 }) : null;
-    if (!s) return 40;
-    return 2 * s.viewingDistanceCm * 10 * Math.tan(Math.PI / 360) * s.pxPerMm;
-  }, [screen, session]);
+  // Pixels per degree of visual angle: the on-screen length of 1° at the viewing distance (mm) times px/mm.
+  const pxPerDeg = screen ? 2 * screen.viewingDistanceCm * 10 * Math.tan(Math.PI / 360) * screen.pxPerMm : null;
   const refreshHz = screen?.refreshHz ?? 60;
 
   /** Runs one trial on the canvas and returns its answer; durations are whole frames. */
@@ -142,6 +142,7 @@ export function ParticipantSession({ token, study }: { token: string; study: Joi
       canvas.width = Math.round(w * dpr);
       canvas.height = Math.round(h * dpr);
       ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
+      if (pxPerDeg === null) throw new Error('the screen check comes first');
       const unit = (study.stimulusSizeDeg * pxPerDeg) / 2 / source.reach();
       const clear = () => {
         ctx.fillStyle = '#808080';
@@ -334,6 +335,7 @@ export function ParticipantSession({ token, study }: { token: string; study: Joi
     }
     queueRef.current?.dispose();
     localStorage.removeItem(storageKey);
+    localStorage.removeItem(`${storageKey}:screen`);
     setPhase('withdrawn');
   };
 
@@ -375,6 +377,15 @@ export function ParticipantSession({ token, study }: { token: string; study: Joi
       )}
 
       {phase === 'screen' && <ParticipantScreenCheck onDone={(c) => void start(c)} />}
+      {phase === 'recheck' && (
+        <ParticipantScreenCheck
+          onDone={(c) => {
+            setScreen(c);
+            localStorage.setItem(`${storageKey}:screen`, JSON.stringify(c));
+            setPhase('instructions');
+          }}
+        />
+      )}
 
       {phase === 'instructions' && session && (
         <section className="space-y-5" aria-labelledby="instructions-title">

@@ -41,7 +41,8 @@ test('a participant completes a study through a network cut and a reload; every 
     if (r.request().resourceType() === 'script') scripts.set(r.url(), (await r.body().catch(() => Buffer.alloc(0))).length);
   });
   await take.goto(new URL(opened.inviteUrl).pathname);
-  await take.waitForLoadState('networkidle');
+  await expect(take.getByTestId('consent-agree')).toBeVisible();
+  await take.waitForLoadState('load');
   const jsBytes = [...scripts.values()].reduce((a, b) => a + b, 0);
   console.log(`participant page JS: ${scripts.size} files, ${(jsBytes / 1024).toFixed(1)} KiB`);
   // No lab UI comes along: no lab navigation, and the scripts stay within the budget (measured 494 KiB, almost all
