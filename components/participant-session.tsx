@@ -448,7 +448,10 @@ export function ParticipantSession({ token, study }: { token: string; study: Joi
           <div className="whitespace-pre-line">{study.debriefText}</div>
           <p>Your finish code: <strong className="font-mono text-xl" data-testid="finish-code">{finishCode}</strong></p>
           {session && (
-            <p className="text-sm">Your session code, to withdraw later: <span className="font-mono" data-testid="session-code">{session.sessionCode}</span></p>
+            <p className="text-sm">
+              Your session code: <span className="font-mono" data-testid="session-code">{session.sessionCode}</span>. Keep it if you may want to withdraw later, at{' '}
+              <a href="/withdraw" className="text-accent underline">the withdrawal page</a>.
+            </p>
           )}
           <button type="button" onClick={() => void withdraw()} className="text-danger underline" data-testid="withdraw">Withdraw my answers</button>
         </section>

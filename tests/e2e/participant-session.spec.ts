@@ -95,5 +95,17 @@ test('a participant completes a study through a network cut and a reload; every 
   await expect(page.getByTestId('sessions-summary')).toContainText('1 started · 1 complete');
   await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: 'test-results/screens/study-monitor.png', fullPage: true });
+
+  // Afterwards, withdrawal with the session code deletes every answer.
+  const code = (await take.getByTestId('session-code').textContent())!;
+  await take.goto('/withdraw');
+  await expectNoSeriousA11yViolations(take);
+  await take.getByTestId('withdraw-code').fill(code);
+  await take.getByTestId('withdraw-submit').click();
+  await expect(take.getByTestId('withdraw-done')).toContainText(`${planned} answers were deleted`);
+  const left = (await (await page.request.get(`${api}/studies/${study.id}/trials`)).json()) as { items: unknown[] };
+  expect(left.items).toHaveLength(0);
+  await page.reload();
+  await expect(page.getByTestId('sessions-table').getByTestId('session-status')).toHaveText('Withdrawn');
   await context.close();
 });
