@@ -101,9 +101,9 @@ export function StudyPlanPreview({ lab, study }: { lab: string; study: StudyValu
             </p>
           ) : null}
           <div className="space-y-2 border-[0.5px] border-rule p-4" data-testid="try-it">
-            <h3 className="font-semibold">Try it yourself</h3>
+            <h3 className="font-semibold">First trials</h3>
             <p className="text-sm text-graphite-soft">
-              Running the task in the browser comes with the participant session. Until then, here are this participant’s first {Math.min(FIRST_TRIALS, data.trials.length)} trials.
+              This participant’s first {Math.min(FIRST_TRIALS, data.trials.length)} trials. To take the task yourself, open the invite link in a private window (your session then shows in the monitor; withdraw it at the end).
             </p>
             <table className="tabular w-full border-collapse text-xs" data-testid="first-trials">
               <thead>

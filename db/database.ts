@@ -238,6 +238,46 @@ export interface StudiesTable {
   updated_at: Generated<Date>;
   opened_at: Date | null;
   closed_at: Date | null;
+  participants_started: Generated<number>;
+}
+
+/** A participant's session of a study; its plan is regenerated from the study seed and `participant_index`. */
+export interface StudySessionsTable {
+  id: Generated<string>;
+  study_id: string;
+  participant_index: number;
+  code_hash: string;
+  planned_trials: number;
+  stored_trials: Generated<number>;
+  screen: ColumnType<unknown, string | null, string | null>;
+  started_at: Generated<Date>;
+  last_seen_at: Generated<Date>;
+  completed_at: Date | null;
+  finish_code: string | null;
+  withdrawn_at: Date | null;
+  is_excluded: Generated<boolean>;
+  exclusion_reason: string | null;
+  excluded_by: string | null;
+}
+
+/** One answered trial of a session, keyed by the client's trial UUID; the first write wins. */
+export interface TrialResponsesTable {
+  session_id: string;
+  client_trial_id: string;
+  trial_index: number;
+  task: 'categorisation' | 'similarity';
+  is_practice: boolean;
+  is_catch: boolean;
+  response_key: string | null;
+  rating: number | null;
+  rt_ms: number | null;
+  is_correct: boolean | null;
+  achieved_ms: number;
+  onset_ms: number;
+  offset_ms: number;
+  was_tab_hidden: boolean;
+  left_full_screen: boolean;
+  received_at: Generated<Date>;
 }
 
 export type RunOrderState = 'ready' | 'queued' | 'running' | 'failed';
@@ -277,6 +317,8 @@ export interface Database {
   lab_api_tokens: LabApiTokensTable;
   studies: StudiesTable;
   run_orders: RunOrdersTable;
+  study_sessions: StudySessionsTable;
+  trial_responses: TrialResponsesTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -294,3 +336,5 @@ export type PackRow = Selectable<PacksTable>;
 export type LabApiTokenRow = Selectable<LabApiTokensTable>;
 export type StudyRow = Selectable<StudiesTable>;
 export type RunOrderRow = Selectable<RunOrdersTable>;
+export type StudySessionRow = Selectable<StudySessionsTable>;
+export type TrialResponseRow = Selectable<TrialResponsesTable>;

@@ -53,6 +53,14 @@ curl -sL -o pack.zip "$URL" && unzip -q pack.zip -d pack && (cd pack && sha256su
 request(link$url) |> req_perform(path = "pack.zip")
 stopifnot(tolower(digest::digest(file = "pack.zip", algo = "sha256")) == pack$sha256)`,
   },
+  {
+    task: "Fetch a study's trials as CSV",
+    curl: `curl -s -H "Authorization: Bearer $EPICYCLE_TOKEN" -o trials.csv \\
+  "$EPICYCLE_URL/api/v1/labs/${LAB}/studies/$STUDY_ID/trials/csv"`,
+    r: `trials <- api(sprintf("studies/%s/trials/csv", study_id)) |> req_perform() |> resp_body_string()
+trials <- read.csv(text = trials)
+table(trials$directionDeg, trials$responseKey)`,
+  },
 ];
 
 /** One whole Python script (requests): approved editions → a pack job, polled → the zip downloaded and checked. */

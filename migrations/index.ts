@@ -9,6 +9,7 @@ import * as m20261202100000 from './20261202100000_create_packs';
 import * as m20261202110000 from './20261202110000_create_studies';
 import * as m20261202120000 from './20261202120000_create_run_orders';
 import * as m20261202130000 from './20261202130000_create_lab_api_tokens';
+import * as m20261202140000 from './20261202140000_create_sessions_and_trials';
 
 /**
  * Every migration, by name, in order. Listed statically so the same set runs under tsx, vitest and the app
@@ -25,4 +26,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202110000_create_studies': m20261202110000,
   '20261202120000_create_run_orders': m20261202120000,
   '20261202130000_create_lab_api_tokens': m20261202130000,
+  '20261202140000_create_sessions_and_trials': m20261202140000,
 };

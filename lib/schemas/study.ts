@@ -159,7 +159,7 @@ export const StudySchema = z.object({
 });
 export type StudyValue = z.infer<typeof StudySchema>;
 
-const CategorisationTrialSchema = z.object({
+export const CategorisationTrialSchema = z.object({
   task: z.literal('categorisation'),
   index: z.number().int(),
   block: z.number().int(),
@@ -173,7 +173,7 @@ const CategorisationTrialSchema = z.object({
   leftAnchor: z.enum(['A', 'B']),
   correctKey: z.string().nullable(),
 });
-const SimilarityTrialSchema = z.object({ task: z.literal('similarity'), index: z.number().int(), block: z.number().int(), first: z.string(), second: z.string(), pairIndex: z.number().int() });
+export const SimilarityTrialSchema = z.object({ task: z.literal('similarity'), index: z.number().int(), block: z.number().int(), first: z.string(), second: z.string(), pairIndex: z.number().int() });
 
 export const TrialPlanSchema = z.object({
   participant: z.number().int(),

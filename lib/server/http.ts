@@ -60,6 +60,8 @@ export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z
   produces?: string;
   /** The answer carries an ETag and is 304 when If-None-Match names it (documented as such). */
   etag?: true;
+  /** Error statuses the route answers besides the ones its access implies (documented in OpenAPI). */
+  errors?: readonly (404 | 409 | 413)[];
   /** Largest accepted body in bytes (default 256 KiB), enforced while the stream is read. */
   maxBodyBytes?: number;
   /** The route takes a file as text of these content types instead of JSON (e.g. an SVG upload). */

@@ -50,6 +50,7 @@ function responsesOf(route: AnyRouteSpec): JsonSchema {
   if (route.etag) errors['304'] = { description: 'Not modified: the If-None-Match ETag is still current', headers: etagHeader };
   if (route.access.kind !== 'public') Object.assign(errors, { '401': PROBLEM, '403': PROBLEM, '429': PROBLEM });
   if (route.access.kind === 'lab') errors['404'] = PROBLEM;
+  for (const status of route.errors ?? []) errors[String(status)] = PROBLEM;
   return { [status]: success, ...errors };
 }
 

@@ -38,6 +38,7 @@ export const POLICY = {
   'pack:create': EXPERIMENT,
   'study:read': ALL,
   'study:write': EXPERIMENT,
+  'session:manage': EXPERIMENT,
   'runorder:read': ALL,
   'runorder:write': EXPERIMENT,
 } as const satisfies Record<string, readonly Role[]>;

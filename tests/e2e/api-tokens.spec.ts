@@ -36,7 +36,7 @@ test('an Owner makes a write token, the README Python example runs with it end t
   const doc = (await (await page.request.get('/api/v1/openapi.json')).json()) as { paths: Record<string, Record<string, unknown>> };
   const operations = Object.values(doc.paths).reduce((n, ops) => n + Object.keys(ops).length, 0);
   await expect(page.getByTestId('api-endpoints').locator('tbody tr')).toHaveCount(operations);
-  await expect(page.getByTestId('api-example')).toHaveCount(3);
+  await expect(page.getByTestId('api-example')).toHaveCount(4);
   await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: 'test-results/screens/api-page.png', fullPage: true });
 

@@ -59,6 +59,7 @@ const CATEGORISATION = {
 };
 const PROFILE = { resolutionPx: { width: 1920, height: 1080 }, widthCm: 53.1, pixelsPerCm: null, viewingDistanceCm: 57 };
 const CSV_CIRCLE = Array.from({ length: 64 }, (_, i) => `${Math.cos((2 * Math.PI * i) / 64).toFixed(6)},${Math.sin((2 * Math.PI * i) / 64).toFixed(6)}`).join('\n');
+const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 function mountedRoutes(): string[] {
@@ -119,6 +120,10 @@ describe('the OpenAPI document and the API agree', () => {
     const edition = (n: number) => ({ ...space(), number: String(n) });
     const pack = () => ({ lab: lab.slug, packId: ids.pack! });
     const suffix = uniqueSuffix();
+    const answerTo = (n: number) => {
+      const [index, key] = (JSON.parse(ids.trials!) as [number, string | null][])[n]!;
+      return { clientTrialId: '6f1c2b0e-3d4a-4b5c-9d6e-7f8091a2b3c4', trialIndex: index, responseKey: key ?? 'f', rating: null, rtMs: 512, achievedMs: 300, onsetMs: 100, offsetMs: 400, wasTabHidden: false, leftFullScreen: false };
+    };
     const waitForPack = async (done: (state: string) => boolean) => {
       for (let i = 0; i < 200; i++) {
         const r = await callRoute(api.getPackRoute, { params: pack(), cookie: lab.members.reviewer.cookie });
@@ -212,7 +217,27 @@ describe('the OpenAPI document and the API agree', () => {
       ['getStudy', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
       ['updateStudy', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, body: { name: `Study ${suffix} b`, version: 1 }, status: 200 })],
       ['getStudyPlan', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, query: { participant: '2' }, status: 200 })],
-      ['openStudy', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, body: { confirmEthics: true }, status: 200 })],
+      ['openStudy', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, body: { confirmEthics: true }, status: 200 }), (b) => {
+        ids.inviteToken = new URL((b as { inviteUrl: string }).inviteUrl).pathname.split('/').pop()!;
+      }],
+      ['getJoinStudy', () => ({ as: 'anonymous', params: { token: ids.inviteToken! }, status: 200 })],
+      ['startParticipantSession', () => ({ as: 'anonymous', params: { token: ids.inviteToken! }, body: { screen: SCREEN }, status: 201 }), (b) => {
+        const s = b as { sessionCode: string; trials: { index: number; correctKey: string | null }[] };
+        ids.sessionCode = s.sessionCode;
+        ids.trials = JSON.stringify(s.trials.map((t) => [t.index, t.correctKey]));
+      }],
+      ['submitTrialResponse', () => ({ as: 'anonymous', params: { token: ids.inviteToken!, code: ids.sessionCode! }, body: answerTo(0), status: 200 })],
+      ['resumeParticipantSession', () => ({ as: 'anonymous', params: { token: ids.inviteToken!, code: ids.sessionCode! }, status: 200 })],
+      // One trial of many is stored: finishing is refused, and the refusal is documented.
+      ['finishParticipantSession', () => ({ as: 'anonymous', params: { token: ids.inviteToken!, code: ids.sessionCode! }, status: 409 })],
+      ['listStudySessions', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 }), (b) => {
+        ids.session = (b as { items: { id: string }[] }).items[0]!.id;
+      }],
+      ['listStudyTrials', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      ['downloadStudyTrialsCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      ['setStudySessionExclusion', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study!, sessionId: ids.session! }, body: { isExcluded: true, reason: 'Test run' }, status: 200 })],
+      ['withdrawParticipantSession', () => ({ as: 'anonymous', body: { sessionCode: ids.sessionCode! }, status: 200 })],
+      ['deleteStudySession', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study!, sessionId: ids.session! }, status: 204 })],
       ['rotateStudyInvite', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, status: 200 })],
       ['revokeStudyInvite', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, status: 200 })],
       ['closeStudy', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, status: 200 })],

@@ -6,12 +6,12 @@ import { callRoute, createLabWithEveryRole, type TestLab } from '../support/acto
 
 // The roles as the product defines them (issue 3), written out independently of lib/server/policy.ts:
 // Owner: everything. Designer: seed shapes, spaces, boundaries, editions (freeze, submit).
-// Experimenter: boundaries, norming studies, run orders, stimulus packs. Reviewer: reads everything, comments,
+// Experimenter: boundaries, norming studies (and their sessions), run orders, stimulus packs. Reviewer: reads everything, comments,
 // approves or returns editions. Display profiles serve packs and studies, so the three making roles edit them.
 const WRITES: Record<Role, PolicyAction[]> = {
   owner: [...POLICY_ACTIONS],
   designer: ['seed:write', 'space:write', 'boundary:write', 'edition:freeze', 'edition:submit', 'edition:comment', 'profile:write'],
-  experimenter: ['boundary:write', 'study:write', 'runorder:write', 'pack:create', 'edition:comment', 'profile:write'],
+  experimenter: ['boundary:write', 'study:write', 'session:manage', 'runorder:write', 'pack:create', 'edition:comment', 'profile:write'],
   reviewer: ['edition:comment', 'edition:decide'],
 };
 const isRead = (a: PolicyAction) => a.endsWith(':read');

@@ -10,6 +10,7 @@ export * from './display-profiles';
 export * from './packs';
 export * from './pack-checks';
 export * from './studies';
+export * from './participant-sessions';
 export * from './api-tokens';
 export * from './openapi';
 export * from './run-orders';

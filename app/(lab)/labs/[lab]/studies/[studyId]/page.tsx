@@ -4,11 +4,13 @@ import { StudyForm } from '@/components/study-form';
 import { StudyLifecycle } from '@/components/study-lifecycle';
 import { formatMinutes, StudyStateBadge } from '@/components/study-notices';
 import { StudyPlanPreview } from '@/components/study-plan-preview';
+import { StudySessionsMonitor } from '@/components/study-sessions-monitor';
 import { Notice } from '@/components/ui/notice';
 import { getDb } from '@/lib/server/db';
 import { requireLabPageActor } from '@/lib/server/page-context';
 import { can } from '@/lib/server/policy';
 import { getStudy, listStudyEditions } from '@/lib/server/services/studies';
+import { listStudySessions } from '@/lib/server/services/study-sessions';
 
 export const metadata: Metadata = { title: 'Study setup' };
 
@@ -19,6 +21,7 @@ export default async function StudyPage({ params }: { params: Promise<{ lab: str
   const study = await getStudy(db, actor, studyId);
   const editions = await listStudyEditions(db, actor);
   const canEdit = can(actor.role, 'study:write');
+  const sessions = study.state === 'draft' ? null : await listStudySessions(db, actor, studyId, { limit: 200 });
   return (
     <>
       <p className="mb-2 text-sm">
@@ -44,6 +47,11 @@ export default async function StudyPage({ params }: { params: Promise<{ lab: str
           <Notice tone="caution" testId="stored-edition-warning">
             {study.editionWarning}
           </Notice>
+        </div>
+      ) : null}
+      {sessions ? (
+        <div className="mb-10">
+          <StudySessionsMonitor lab={lab} studyId={studyId} initial={sessions} canManage={can(actor.role, 'session:manage')} />
         </div>
       ) : null}
       <div className="grid gap-8 xl:grid-cols-[1fr_24rem]">

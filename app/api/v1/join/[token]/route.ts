@@ -1,0 +1,3 @@
+import { getJoinStudyRoute } from '@/lib/server/api/participant-sessions';
+import { toHandler } from '@/lib/server/http';
+export const GET = toHandler(getJoinStudyRoute);

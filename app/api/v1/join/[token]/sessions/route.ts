@@ -1,0 +1,3 @@
+import { startSessionRoute } from '@/lib/server/api/participant-sessions';
+import { toHandler } from '@/lib/server/http';
+export const POST = toHandler(startSessionRoute);

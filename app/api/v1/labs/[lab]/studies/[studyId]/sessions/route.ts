@@ -1,0 +1,3 @@
+import { listStudySessionsRoute } from '@/lib/server/api/participant-sessions';
+import { toHandler } from '@/lib/server/http';
+export const GET = toHandler(listStudySessionsRoute);

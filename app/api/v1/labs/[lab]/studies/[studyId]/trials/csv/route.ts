@@ -1,0 +1,3 @@
+import { studyTrialsCsvRoute } from '@/lib/server/api/participant-sessions';
+import { toHandler } from '@/lib/server/http';
+export const GET = toHandler(studyTrialsCsvRoute);

@@ -1,0 +1,3 @@
+import { listStudyTrialsRoute } from '@/lib/server/api/participant-sessions';
+import { toHandler } from '@/lib/server/http';
+export const GET = toHandler(listStudyTrialsRoute);
