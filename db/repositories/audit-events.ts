@@ -1,6 +1,6 @@
 import type { DbHandle as Handle } from '../client';
 import type { AuditEventRow } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 export interface NewAuditEvent {
   labId: string | null;
@@ -38,11 +38,6 @@ export async function listAuditEventsForLab(
     .selectAll('audit_events')
     .select('users.name as actor_name')
     .where('audit_events.lab_id', '=', labId);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) =>
-      eb.or([eb('audit_events.created_at', '<', new Date(at)), eb.and([eb('audit_events.created_at', '=', new Date(at)), eb('audit_events.id', '<', id)])]),
-    );
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'audit_events.created_at', 'audit_events.id'));
   return q.orderBy('audit_events.created_at', 'desc').orderBy('audit_events.id', 'desc').limit(page.limit + 1).execute();
 }

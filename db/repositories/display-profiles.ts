@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle } from '../client';
 import type { DisplayProfileRow } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 export type DisplayProfileListRow = DisplayProfileRow & { updated_by_name: string | null };
 
@@ -31,10 +31,7 @@ function withJoins(db: DbHandle) {
 
 export function listDisplayProfiles(db: DbHandle, labId: string, page: { cursor?: string | undefined; limit: number }): Promise<DisplayProfileListRow[]> {
   let q = withJoins(db).where('display_profiles.lab_id', '=', labId);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) => eb.or([eb('display_profiles.updated_at', '<', new Date(at)), eb.and([eb('display_profiles.updated_at', '=', new Date(at)), eb('display_profiles.id', '<', id)])]));
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'display_profiles.updated_at', 'display_profiles.id'));
   return q.orderBy('display_profiles.updated_at', 'desc').orderBy('display_profiles.id', 'desc').limit(page.limit + 1).execute();
 }
 

@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle } from '../client';
 import type { EditionCommentRow, EditionRow, EditionState } from '../database';
-import { beforeCursor, decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 /** An edition without its snapshot, with the names of the people on it. */
 export type EditionListRow = Omit<EditionRow, 'snapshot'> & {
@@ -58,10 +58,7 @@ function withJoins(db: DbHandle) {
 /** A space's editions, newest first, keyset-paginated; fetches `limit + 1` rows. */
 export function listEditions(db: DbHandle, labId: string, spaceId: string, page: { cursor?: string | undefined; limit: number }): Promise<EditionListRow[]> {
   let q = withJoins(db).where('editions.lab_id', '=', labId).where('editions.space_id', '=', spaceId);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) => eb.or([eb('editions.created_at', '<', new Date(at)), eb.and([eb('editions.created_at', '=', new Date(at)), eb('editions.id', '<', id)])]));
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'editions.created_at', 'editions.id'));
   return q.orderBy('editions.created_at', 'desc').orderBy('editions.id', 'desc').limit(page.limit + 1).execute();
 }
 

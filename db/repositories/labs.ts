@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle as Handle } from '../client';
 import type { LabRow, NewLabRow } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 export function findLabBySlug(db: Handle, slug: string): Promise<LabRow | undefined> {
   return db.selectFrom('labs').selectAll().where('slug', '=', slug).executeTakeFirst();
@@ -25,12 +25,7 @@ export async function listLabsByIds(
 ): Promise<LabRow[]> {
   if (ids.length === 0) return [];
   let q = db.selectFrom('labs').selectAll().where('id', 'in', ids);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) =>
-      eb.or([eb('created_at', '<', new Date(at)), eb.and([eb('created_at', '=', new Date(at)), eb('id', '<', id)])]),
-    );
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'created_at', 'id'));
   return q.orderBy('created_at', 'desc').orderBy('id', 'desc').limit(page.limit + 1).execute();
 }
 

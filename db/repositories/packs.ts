@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle } from '../client';
 import type { PackRow, PackState } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 export type PackListRow = Omit<PackRow, 'manifest' | 'sequences'> & {
   space_id: string;
@@ -53,10 +53,7 @@ function withJoins(db: DbHandle) {
 
 export function listPacks(db: DbHandle, labId: string, page: { cursor?: string | undefined; limit: number }): Promise<PackListRow[]> {
   let q = withJoins(db).where('packs.lab_id', '=', labId);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) => eb.or([eb('packs.created_at', '<', new Date(at)), eb.and([eb('packs.created_at', '=', new Date(at)), eb('packs.id', '<', id)])]));
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'packs.created_at', 'packs.id'));
   return q.orderBy('packs.created_at', 'desc').orderBy('packs.id', 'desc').limit(page.limit + 1).execute();
 }
 

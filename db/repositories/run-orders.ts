@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle } from '../client';
 import type { RunOrderRow, RunOrderState } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 export type RunOrderListRow = RunOrderRow & {
   space_id: string;
@@ -32,10 +32,7 @@ function withJoins(db: DbHandle) {
 /** Run orders of one edition, newest first (keyset pagination on created_at, id). */
 export function listRunOrders(db: DbHandle, labId: string, editionId: string, page: { cursor?: string | undefined; limit: number }): Promise<RunOrderListRow[]> {
   let q = withJoins(db).where('run_orders.lab_id', '=', labId).where('run_orders.edition_id', '=', editionId);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) => eb.or([eb('run_orders.created_at', '<', new Date(at)), eb.and([eb('run_orders.created_at', '=', new Date(at)), eb('run_orders.id', '<', id)])]));
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'run_orders.created_at', 'run_orders.id'));
   return q.orderBy('run_orders.created_at', 'desc').orderBy('run_orders.id', 'desc').limit(page.limit + 1).execute();
 }
 

@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle } from '../client';
 import type { SeedShapeRow } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 export type SeedShapeListRow = SeedShapeRow & { updated_by_name: string | null; created_by_name: string | null };
 
@@ -17,12 +17,7 @@ function withNames(db: DbHandle) {
 /** A lab's seed shapes, most recently changed first, keyset-paginated; fetches `limit + 1` rows. */
 export async function listSeedShapes(db: DbHandle, labId: string, page: { cursor?: string | undefined; limit: number }): Promise<SeedShapeListRow[]> {
   let q = withNames(db).where('seed_shapes.lab_id', '=', labId);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) =>
-      eb.or([eb('seed_shapes.updated_at', '<', new Date(at)), eb.and([eb('seed_shapes.updated_at', '=', new Date(at)), eb('seed_shapes.id', '<', id)])]),
-    );
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'seed_shapes.updated_at', 'seed_shapes.id'));
   return q.orderBy('seed_shapes.updated_at', 'desc').orderBy('seed_shapes.id', 'desc').limit(page.limit + 1).execute();
 }
 

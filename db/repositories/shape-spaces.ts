@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle } from '../client';
 import type { ShapeSpaceRow } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 export type ShapeSpaceListRow = ShapeSpaceRow & {
   seed_name: string;
@@ -31,12 +31,7 @@ function withJoins(db: DbHandle) {
 
 export async function listShapeSpaces(db: DbHandle, labId: string, page: { cursor?: string | undefined; limit: number }): Promise<ShapeSpaceListRow[]> {
   let q = withJoins(db).where('shape_spaces.lab_id', '=', labId);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) =>
-      eb.or([eb('shape_spaces.updated_at', '<', new Date(at)), eb.and([eb('shape_spaces.updated_at', '=', new Date(at)), eb('shape_spaces.id', '<', id)])]),
-    );
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'shape_spaces.updated_at', 'shape_spaces.id'));
   return q.orderBy('shape_spaces.updated_at', 'desc').orderBy('shape_spaces.id', 'desc').limit(page.limit + 1).execute();
 }
 

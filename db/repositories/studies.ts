@@ -1,7 +1,7 @@
 import { notFound } from '@/lib/errors';
 import type { DbHandle } from '../client';
 import type { EditionState, StudyRow, StudyState } from '../database';
-import { decodeCursor } from '../pagination';
+import { beforeCursor } from '../pagination';
 
 /** A study with its edition's identity and the names of the people on it. */
 export type StudyListRow = StudyRow & {
@@ -60,10 +60,7 @@ function withJoins(db: DbHandle) {
 /** The lab's studies, most recently changed first, keyset-paginated; fetches `limit + 1` rows. */
 export function listStudies(db: DbHandle, labId: string, page: { cursor?: string | undefined; limit: number }): Promise<StudyListRow[]> {
   let q = withJoins(db).where('studies.lab_id', '=', labId);
-  if (page.cursor) {
-    const { at, id } = decodeCursor(page.cursor);
-    q = q.where((eb) => eb.or([eb('studies.updated_at', '<', new Date(at)), eb.and([eb('studies.updated_at', '=', new Date(at)), eb('studies.id', '<', id)])]));
-  }
+  if (page.cursor) q = q.where(beforeCursor(page.cursor, 'studies.updated_at', 'studies.id'));
   return q.orderBy('studies.updated_at', 'desc').orderBy('studies.id', 'desc').limit(page.limit + 1).execute();
 }
 
