@@ -20,6 +20,7 @@ import { renderPng } from '@/lib/render/render-png';
 import { DEFAULT_RENDER_OPTIONS } from '@/lib/schemas/render';
 import { DEFAULT_RUN_ORDER_DEFINITION } from '@/lib/schemas/run-order';
 import { callRoute, createLabWithEveryRole, sessionCookie, TEST_PASSWORD, type TestLab } from '../support/actors';
+import { TEST_SEED, testSpaceSettings } from '../support/editions';
 import { uniqueSuffix } from '../support/db';
 
 type Role = keyof TestLab['members'];
@@ -35,17 +36,7 @@ interface Call {
   status: number;
 }
 
-const SEED = { family: 'radial', baseRadius: 1, terms: [{ k: 3, amplitude: 0.1, phase: 0.2 }] };
-const SPACE = {
-  axes: [
-    { label: 'A', changes: [{ harmonic: 2, field: 'amplitude', delta: 0.08 }] },
-    { label: 'B', changes: [{ harmonic: 4, field: 'amplitude', delta: 0.08 }] },
-  ],
-  extent: 1,
-  layout: { kind: 'rings', rings: 1, spokes: 4 },
-  normalization: { scale: 'equal-area-radius', centroid: true },
-  equalize: false,
-};
+const SPACE = testSpaceSettings({ kind: 'rings', rings: 1, spokes: 4 });
 const CATEGORISATION = {
   directionsDeg: [0, 90],
   steps: 7,
@@ -157,7 +148,7 @@ describe('the OpenAPI document and the API agree', () => {
       ['changeLabMemberRole', () => ({ as: 'owner', params: { ...L(), userId: ids.extra! }, body: { role: 'experimenter' }, status: 200 })],
       ['removeLabMember', () => ({ as: 'owner', params: { ...L(), userId: ids.extra! }, status: 204 })],
       ['listAuditEvents', () => ({ as: 'token', params: L(), status: 200 })],
-      ['createSeedShape', () => ({ as: 'designer', params: L(), body: { name: `Seed ${suffix}`, descriptor: SEED }, status: 201 }), (b) => {
+      ['createSeedShape', () => ({ as: 'designer', params: L(), body: { name: `Seed ${suffix}`, descriptor: TEST_SEED }, status: 201 }), (b) => {
         ids.seed = (b as { id: string }).id;
       }],
       ['listSeedShapes', () => ({ as: 'token', params: L(), status: 200 })],
@@ -267,7 +258,7 @@ describe('the OpenAPI document and the API agree', () => {
     const extra = await insertUser(getDb(), { email: `extra-${suffix}@test.example`, name: 'Extra', passwordHash: null });
     await insertMembership(getDb(), lab.id, extra.id, 'reviewer');
     ids.extra = extra.id;
-    const spareSeed = await callRoute(api.createSeedShapeRoute, { params: L(), body: { name: `Spare ${suffix}`, descriptor: SEED }, cookie: lab.members.designer.cookie });
+    const spareSeed = await callRoute(api.createSeedShapeRoute, { params: L(), body: { name: `Spare ${suffix}`, descriptor: TEST_SEED }, cookie: lab.members.designer.cookie });
     ids.spareSeed = (spareSeed.body as { id: string }).id;
     const spareSpace = await callRoute(api.createShapeSpaceRoute, { params: L(), body: { name: `Spare space ${suffix}`, seedShapeId: ids.spareSeed, ...SPACE }, cookie: lab.members.designer.cookie });
     ids.spareSpace = (spareSpace.body as { id: string }).id;

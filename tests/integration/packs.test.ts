@@ -12,11 +12,11 @@ import { resolvePackDownload } from '@/lib/server/services/packs';
 import { renderPng } from '@/lib/render/render-png';
 import { DEFAULT_RENDER_OPTIONS } from '@/lib/schemas/render';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
+import { TEST_SEED, testSpaceSettings } from '../support/editions';
 
 // A dead worker's job must come back quickly here: the queue retries it after this many seconds.
 process.env.PACK_JOB_EXPIRE_SECONDS = '3';
 
-const SEED = { family: 'radial', baseRadius: 1, terms: [{ k: 3, amplitude: 0.1, phase: 0.2 }] };
 type Pack = { id: string; state: string; progress: number; sha256: string | null; sizeBytes: number | null; attempts: number; error: string | null; stimulusCount: number | null };
 
 const sha = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
@@ -57,21 +57,10 @@ describe('pack jobs, storage and downloads', () => {
 
   beforeAll(async () => {
     lab = await createLabWithEveryRole(getDb());
-    const seed = await callRoute(api.createSeedShapeRoute, { params: { lab: lab.slug }, body: { name: 'Seed', descriptor: SEED }, cookie: as('designer') });
+    const seed = await callRoute(api.createSeedShapeRoute, { params: { lab: lab.slug }, body: { name: 'Seed', descriptor: TEST_SEED }, cookie: as('designer') });
     const space = await callRoute(api.createShapeSpaceRoute, {
       params: { lab: lab.slug },
-      body: {
-        name: 'Pack space',
-        seedShapeId: (seed.body as { id: string }).id,
-        axes: [
-          { label: 'A', changes: [{ harmonic: 2, field: 'amplitude', delta: 0.08 }] },
-          { label: 'B', changes: [{ harmonic: 4, field: 'amplitude', delta: 0.08 }] },
-        ],
-        extent: 1,
-        layout: { kind: 'rings', rings: 2, spokes: 6 },
-        normalization: { scale: 'equal-area-radius', centroid: true },
-        equalize: false,
-      },
+      body: { name: 'Pack space', seedShapeId: (seed.body as { id: string }).id, ...testSpaceSettings({ kind: 'rings', rings: 2, spokes: 6 }) },
       cookie: as('designer'),
     });
     spaceId = (space.body as { id: string }).id;

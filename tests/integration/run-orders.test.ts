@@ -16,8 +16,8 @@ import { checkType1Index1Sequence } from '@/lib/sequence/check-type1-index1-sequ
 import { DEFAULT_RUN_ORDER_DEFINITION, type RunOrderDefinition, type RunOrderValue } from '@/lib/schemas/run-order';
 import { DEFAULT_RENDER_OPTIONS } from '@/lib/schemas/render';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
+import { TEST_SEED, testSpaceSettings } from '../support/editions';
 
-const SEED = { family: 'radial', baseRadius: 1, terms: [{ k: 3, amplitude: 0.1, phase: 0.2 }] };
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 type Problem = { code: string; detail: string; errors?: Record<string, string[]> };
 
@@ -48,21 +48,10 @@ describe('run orders: API, roles, validation, zip, background search, packs', ()
     return toHandler(api.downloadRunOrderRoute)(req, { params: Promise.resolve({ lab: lab.slug, runOrderId: id }) });
   }
   async function makeSpace(name: string, layout: unknown, boundary: boolean): Promise<string> {
-    const seed = await callRoute(api.createSeedShapeRoute, { params: { lab: lab.slug }, body: { name: `Seed ${name}`, descriptor: SEED }, cookie: as('designer') });
+    const seed = await callRoute(api.createSeedShapeRoute, { params: { lab: lab.slug }, body: { name: `Seed ${name}`, descriptor: TEST_SEED }, cookie: as('designer') });
     const space = await callRoute(api.createShapeSpaceRoute, {
       params: { lab: lab.slug },
-      body: {
-        name,
-        seedShapeId: (seed.body as { id: string }).id,
-        axes: [
-          { label: 'A', changes: [{ harmonic: 2, field: 'amplitude', delta: 0.08 }] },
-          { label: 'B', changes: [{ harmonic: 4, field: 'amplitude', delta: 0.08 }] },
-        ],
-        extent: 1,
-        layout,
-        normalization: { scale: 'equal-area-radius', centroid: true },
-        equalize: false,
-      },
+      body: { name, seedShapeId: (seed.body as { id: string }).id, ...testSpaceSettings(layout) },
       cookie: as('designer'),
     });
     const id = (space.body as { id: string }).id;

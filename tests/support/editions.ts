@@ -2,7 +2,22 @@ import { expect } from 'vitest';
 import * as api from '@/lib/server/api';
 import { callRoute, type TestLab } from './actors';
 
-const SEED = { family: 'radial', baseRadius: 1, terms: [{ k: 3, amplitude: 0.1, phase: 0.2 }] };
+/** The tests' seed shape: one radial harmonic. */
+export const TEST_SEED = { family: 'radial', baseRadius: 1, terms: [{ k: 3, amplitude: 0.1, phase: 0.2 }] };
+
+/** The settings of a test space on `TEST_SEED` (two lobe axes, ρmax 1, normalised), laid out as `layout`. */
+export function testSpaceSettings(layout: unknown) {
+  return {
+    axes: [
+      { label: 'A', changes: [{ harmonic: 2, field: 'amplitude', delta: 0.08 }] },
+      { label: 'B', changes: [{ harmonic: 4, field: 'amplitude', delta: 0.08 }] },
+    ],
+    extent: 1,
+    layout,
+    normalization: { scale: 'equal-area-radius', centroid: true },
+    equalize: false,
+  };
+}
 
 /**
  * A seed shape, a Rings 2 × 6 space and its edition 1, made through the API by the lab's Designer; Approved by its
@@ -10,21 +25,10 @@ const SEED = { family: 'radial', baseRadius: 1, terms: [{ k: 3, amplitude: 0.1, 
  */
 export async function makeEdition(lab: TestLab, name: string, approve: boolean): Promise<{ editionId: string; spaceId: string; stimulusCount: number }> {
   const as = (role: keyof TestLab['members']) => lab.members[role].cookie;
-  const seed = await callRoute(api.createSeedShapeRoute, { params: { lab: lab.slug }, body: { name: `${name} seed`, descriptor: SEED }, cookie: as('designer') });
+  const seed = await callRoute(api.createSeedShapeRoute, { params: { lab: lab.slug }, body: { name: `${name} seed`, descriptor: TEST_SEED }, cookie: as('designer') });
   const space = await callRoute(api.createShapeSpaceRoute, {
     params: { lab: lab.slug },
-    body: {
-      name,
-      seedShapeId: (seed.body as { id: string }).id,
-      axes: [
-        { label: 'A', changes: [{ harmonic: 2, field: 'amplitude', delta: 0.08 }] },
-        { label: 'B', changes: [{ harmonic: 4, field: 'amplitude', delta: 0.08 }] },
-      ],
-      extent: 1,
-      layout: { kind: 'rings', rings: 2, spokes: 6 },
-      normalization: { scale: 'equal-area-radius', centroid: true },
-      equalize: false,
-    },
+    body: { name, seedShapeId: (seed.body as { id: string }).id, ...testSpaceSettings({ kind: 'rings', rings: 2, spokes: 6 }) },
     cookie: as('designer'),
   });
   const spaceId = (space.body as { id: string }).id;
