@@ -70,10 +70,11 @@ export function findPackByOptions(db: DbHandle, editionId: string, optionsHash: 
   return db.selectFrom('packs').select(['id', 'state']).where('edition_id', '=', editionId).where('options_hash', '=', optionsHash).executeTakeFirst();
 }
 
-export async function getPackManifest(db: DbHandle, labId: string, id: string): Promise<unknown | null> {
-  const row = await db.selectFrom('packs').select('manifest').where('lab_id', '=', labId).where('id', '=', id).executeTakeFirst();
+/** A pack's manifest (null until built) and the zip's SHA-256 that names its version. */
+export async function getPackManifest(db: DbHandle, labId: string, id: string): Promise<{ manifest: unknown | null; sha256: string | null }> {
+  const row = await db.selectFrom('packs').select(['manifest', 'sha256']).where('lab_id', '=', labId).where('id', '=', id).executeTakeFirst();
   if (!row) throw notFound('pack', 'No such pack in this lab.');
-  return row.manifest;
+  return row;
 }
 
 /** The run order files attached to a pack (`{ name, text }[]`, names inside `sequences/`). */

@@ -124,10 +124,9 @@ export async function getPack(db: Db, actor: LabActor, id: string): Promise<Pack
 /** A finished pack's manifest, with an ETag: a built pack never changes, so its zip's SHA-256 names the version. */
 export async function getPackManifest(db: Db, actor: LabActor, id: string): Promise<{ manifest: unknown; etag: string }> {
   authorize(actor, 'pack:read');
-  const manifest = await getManifestRow(db, actor.labId, id);
+  const { manifest, sha256 } = await getManifestRow(db, actor.labId, id);
   if (manifest === null) throw conflict('pack', 'This pack is not built yet, so it has no manifest.');
-  const row = await getPackRow(db, actor.labId, id);
-  return { manifest, etag: `"manifest-${row.sha256 ?? row.id}"` };
+  return { manifest, etag: `"manifest-${sha256 ?? id}"` };
 }
 
 /** Cancels a waiting pack at once; a pack being built stops at its worker's next check, between stimuli. */
