@@ -79,7 +79,9 @@ const LL = 0;
 const G = 1;
 const A = 4;
 const I = 13;
-const EVALUATION_SIZE = 22;
+/** 1 once the information of the buffer's point is filled in. */
+const HAS_I = 22;
+const EVALUATION_SIZE = 23;
 
 /**
  * A maximum-likelihood fitter for one design of ψ(x) = λ + (1 − 2λ)F((x − threshold)/spread) that fits threshold,
@@ -138,13 +140,15 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
     trial = held;
   }
 
-  /** ℓ, score, −Hessian and Fisher information at (c, b, λ) into `out`. */
+  /**
+   * ℓ, the score and the negative observed Hessian at (c, b, λ) into `out`. The expected information, needed only
+   * where the observed Hessian is not negative definite, is left to `addInformation`.
+   */
   function evaluate(c: number, b: number, lapse: number, out: Float64Array): void {
     const s = 1 - 2 * lapse;
     let ll = 0;
     let g0 = 0, g1 = 0, g2 = 0;
     let a00 = 0, a01 = 0, a02 = 0, a11 = 0, a12 = 0, a22 = 0;
-    let i00 = 0, i01 = 0, i02 = 0, i11 = 0, i12 = 0, i22 = 0;
     for (let i = 0; i < m; i++) {
       const u = xc[i] as number;
       const eta = c + b * u;
@@ -189,7 +193,6 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
         r1 -= q;
         r2 += q * inverse;
       }
-      const w = nk / Math.max(psi * psiC, VARIANCE_FLOOR);
       // ∂ψ/∂(c, b, λ) and the second derivatives ∂²ψ (∂²ψ/∂λ² = 0).
       const dc = s * f;
       const db = dc * u;
@@ -206,12 +209,6 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
       a11 += r2 * db * db - r1 * hcb * u;
       a12 += r2 * db * dl - r1 * hcl * u;
       a22 += r2 * dl * dl;
-      i00 += w * dc * dc;
-      i01 += w * dc * db;
-      i02 += w * dc * dl;
-      i11 += w * db * db;
-      i12 += w * db * dl;
-      i22 += w * dl * dl;
     }
     out[LL] = ll;
     out[G] = g0;
@@ -223,12 +220,51 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
     out[A + 4] = a11;
     out[A + 5] = out[A + 7] = a12;
     out[A + 8] = a22;
+    out[HAS_I] = 0;
+  }
+
+  /** The expected (Fisher) information at (c, b, λ) into `out`, once per point. */
+  function addInformation(c: number, b: number, lapse: number, out: Float64Array): void {
+    if (out[HAS_I] === 1) return;
+    const s = 1 - 2 * lapse;
+    let i00 = 0, i01 = 0, i02 = 0, i11 = 0, i12 = 0, i22 = 0;
+    for (let i = 0; i < m; i++) {
+      const u = xc[i] as number;
+      const eta = c + b * u;
+      let F: number;
+      let Fc: number;
+      let f: number;
+      if (isLogit) {
+        const e = Math.exp(-Math.abs(eta));
+        const big = 1 / (1 + e);
+        const small = e * big;
+        F = eta >= 0 ? big : small;
+        Fc = eta >= 0 ? small : big;
+        f = big * small;
+      } else {
+        const tail = normalCdf(-Math.abs(eta));
+        F = eta >= 0 ? 1 - tail : tail;
+        Fc = eta >= 0 ? tail : 1 - tail;
+        f = INV_SQRT_2PI * Math.exp(-0.5 * eta * eta);
+      }
+      const w = (trials[i] as number) / Math.max((lapse + s * F) * (lapse + s * Fc), VARIANCE_FLOOR);
+      const dc = s * f;
+      const db = dc * u;
+      const dl = Fc - F;
+      i00 += w * dc * dc;
+      i01 += w * dc * db;
+      i02 += w * dc * dl;
+      i11 += w * db * db;
+      i12 += w * db * dl;
+      i22 += w * dl * dl;
+    }
     out[I] = i00;
     out[I + 1] = out[I + 3] = i01;
     out[I + 2] = out[I + 6] = i02;
     out[I + 4] = i11;
     out[I + 5] = out[I + 7] = i12;
     out[I + 8] = i22;
+    out[HAS_I] = 1;
   }
 
   /** Solves M_ff d_f = g_f over the free variables by Cholesky (M from slot `from` of `current`); false if not PD. */
@@ -272,8 +308,9 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
   }
 
   /** Newton direction (returns true), else Fisher scoring, else a diagonally scaled score step (false). */
-  function chooseDirection(): boolean {
+  function chooseDirection(c: number, b: number, lapse: number): boolean {
     if (solve(A)) return true;
+    addInformation(c, b, lapse, current);
     if (solve(I)) return false;
     for (let j = 0; j < VARIABLES; j++) {
       const info = current[I + j * VARIABLES + j] as number;
@@ -304,7 +341,7 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
       free[1] = !((b >= bHigh && gb > 0) || (b <= bLow && gb < 0));
       free[2] = lapseFree && !((lapse <= 0 && gl < 0) || (lapse >= lapseMax && gl > 0));
       if (!free[0] && !free[1] && !free[2]) break;
-      let isNewton = chooseDirection();
+      let isNewton = chooseDirection(c, b, lapse);
       // A variable on a bound whose step would leave the box is held too, and the direction recomputed.
       for (let round = 0; round < VARIABLES; round++) {
         const leavesB = free[1] && ((b >= bHigh && (direction[1] as number) > 0) || (b <= bLow && (direction[1] as number) < 0));
@@ -312,7 +349,7 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
         if (!leavesB && !leavesL) break;
         if (leavesB) free[1] = false;
         if (leavesL) free[2] = false;
-        isNewton = chooseDirection();
+        isNewton = chooseDirection(c, b, lapse);
       }
       const dc = direction[0] as number;
       const db = direction[1] as number;
