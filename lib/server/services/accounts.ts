@@ -16,10 +16,10 @@ import { clearSignInAttempts, consumeSignInAttempt } from '../auth/rate-limit';
 import { getEnv } from '../env';
 import { sendMail } from '../mail/mailer';
 import { passwordResetMail } from '../mail/templates';
+import { isUniqueViolation } from '@/db/errors';
 
 /** A reset link is good for one hour. */
 const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
-const UNIQUE_VIOLATION = '23505';
 
 export const INVALID_CREDENTIALS_MESSAGE = 'That e-mail and password do not match an account.';
 
@@ -66,7 +66,7 @@ export async function signUp(
     });
   } catch (error) {
     // Two sign-ups racing on one address: the unique index decides.
-    if ((error as { code?: string }).code === UNIQUE_VIOLATION) {
+    if (isUniqueViolation(error)) {
       throw conflict('account', 'An account with that e-mail already exists.', { email: ['Already registered — sign in instead'] });
     }
     throw error;

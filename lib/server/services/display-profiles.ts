@@ -16,8 +16,8 @@ import { checkDisplayProfile, pixelsPerCm, pixelsPerDegree, visualAngle, type Di
 import type { Page, PageQuery } from '@/lib/schemas/common';
 import type { DisplayProfileInput, DisplayProfileValue } from '@/lib/schemas/display-profile';
 import { authorize, type LabActor } from './access';
+import { isUniqueViolation } from '@/db/errors';
 
-const UNIQUE_VIOLATION = '23505';
 const NAME_TAKEN = conflict('profile', 'A display profile with that name already exists in this lab.', { name: ['Name already used'] });
 
 /** The core's view of a stored profile. */
@@ -77,7 +77,7 @@ async function uniqueName<T>(work: () => Promise<T>): Promise<T> {
   try {
     return await work();
   } catch (error) {
-    if ((error as { code?: string }).code === UNIQUE_VIOLATION) throw NAME_TAKEN;
+    if (isUniqueViolation(error)) throw NAME_TAKEN;
     throw error;
   }
 }

@@ -19,8 +19,8 @@ import { getBoss, PACK_QUEUE, sendPackJob } from '../jobs/boss';
 import { authorize, type LabActor } from './access';
 import { getCoreDisplayProfile } from './display-profiles';
 import { packSequencesOf } from './run-orders';
+import { isUniqueViolation } from '@/db/errors';
 
-const UNIQUE_VIOLATION = '23505';
 
 function toPack(row: PackListRow): PackValue {
   return {
@@ -101,7 +101,7 @@ export async function createPack(db: Db, actor: LabActor, spaceId: string, numbe
       return id;
     });
   } catch (error) {
-    if ((error as { code?: string }).code === UNIQUE_VIOLATION) {
+    if (isUniqueViolation(error)) {
       const again = await findPackByOptions(db, edition.id, optionsHash);
       if (again) return { pack: toPack(await getPackRow(db, actor.labId, again.id)), reused: true };
     }

@@ -19,9 +19,8 @@ import { DescriptorSchema, type DescriptorInput } from '@/lib/schemas/descriptor
 import { SeedShapeOriginSchema, type SeedShape, type SeedShapeOrigin } from '@/lib/schemas/seed-shapes';
 import { authorize, type LabActor } from './access';
 import { shapeErrorToAppError } from './shape-errors';
+import { isForeignKeyViolation, isUniqueViolation } from '@/db/errors';
 
-const UNIQUE_VIOLATION = '23505';
-const FOREIGN_KEY_VIOLATION = '23503';
 
 /** The number of harmonics a descriptor carries (its terms). */
 function harmonicCount(d: DescriptorInput): number {
@@ -59,9 +58,6 @@ function toSeedShape(row: SeedShapeListRow, spaces = 0): SeedShape {
   };
 }
 
-function nameTaken(error: unknown): boolean {
-  return (error as { code?: string }).code === UNIQUE_VIOLATION;
-}
 const NAME_TAKEN = conflict('seed-shape', 'A seed shape with that name already exists in this lab.', { name: ['Name already used'] });
 
 export async function listSeedShapes(db: Db, actor: LabActor, query: PageQuery): Promise<Page<SeedShape>> {
@@ -98,7 +94,7 @@ export async function createSeedShape(
     });
     return getSeedShape(db, actor, id);
   } catch (error) {
-    if (nameTaken(error)) throw NAME_TAKEN;
+    if (isUniqueViolation(error)) throw NAME_TAKEN;
     throw error;
   }
 }
@@ -133,7 +129,7 @@ export async function updateSeedShape(
       });
     });
   } catch (error) {
-    if (nameTaken(error)) throw NAME_TAKEN;
+    if (isUniqueViolation(error)) throw NAME_TAKEN;
     throw error;
   }
   return getSeedShape(db, actor, id);
@@ -149,7 +145,7 @@ export async function deleteSeedShape(db: Db, actor: LabActor, id: string): Prom
       await insertAuditEvent(trx, { labId: actor.labId, actorUserId: actor.userId, action: 'seed-shape.delete', subjectType: 'seed-shape', subjectId: id, details: { name: before.name } });
     });
   } catch (error) {
-    if ((error as { code?: string }).code === FOREIGN_KEY_VIOLATION) {
+    if (isForeignKeyViolation(error)) {
       throw conflict('seed-shape', 'A shape space is built on this seed shape; delete or re-seed that space first.');
     }
     throw error;

@@ -21,8 +21,8 @@ import { BoundarySchema, type BoundaryValue } from '@/lib/schemas/boundary';
 import { BoundaryError, checkBoundaries } from '@/lib/boundary';
 import { EqualizationSchema, SpaceSettingsSchema, type ShapeSpace, type SpaceSettings } from '@/lib/schemas/space';
 import { authorize, type LabActor } from './access';
+import { isForeignKeyViolation, isUniqueViolation } from '@/db/errors';
 
-const UNIQUE_VIOLATION = '23505';
 /** Invalid stimuli named in one error message; the rest are counted. */
 const FAILURES_LISTED = 12;
 
@@ -131,7 +131,7 @@ export async function createShapeSpace(db: Db, actor: LabActor, input: { name: s
     });
     return getShapeSpace(db, actor, id);
   } catch (error) {
-    if ((error as { code?: string }).code === UNIQUE_VIOLATION) throw NAME_TAKEN;
+    if (isUniqueViolation(error)) throw NAME_TAKEN;
     throw error;
   }
 }
@@ -155,7 +155,7 @@ export async function updateShapeSpace(
       await insertAuditEvent(trx, { labId: actor.labId, actorUserId: actor.userId, action: 'space.update', subjectType: 'space', subjectId: id, details: { version: row.version } });
     });
   } catch (error) {
-    if ((error as { code?: string }).code === UNIQUE_VIOLATION) throw NAME_TAKEN;
+    if (isUniqueViolation(error)) throw NAME_TAKEN;
     throw error;
   }
   return getShapeSpace(db, actor, id);
@@ -165,7 +165,6 @@ function stripUndefined<T extends object>(o: T): Partial<T> {
   return Object.fromEntries(Object.entries(o).filter(([k, v]) => v !== undefined && k !== 'version')) as Partial<T>;
 }
 
-const FOREIGN_KEY_VIOLATION = '23503';
 
 export async function deleteShapeSpace(db: Db, actor: LabActor, id: string): Promise<void> {
   authorize(actor, 'space:write');
@@ -176,7 +175,7 @@ export async function deleteShapeSpace(db: Db, actor: LabActor, id: string): Pro
       await insertAuditEvent(trx, { labId: actor.labId, actorUserId: actor.userId, action: 'space.delete', subjectType: 'space', subjectId: id, details: { name: before.name } });
     });
   } catch (error) {
-    if ((error as { code?: string }).code === FOREIGN_KEY_VIOLATION) {
+    if (isForeignKeyViolation(error)) {
       throw conflict('space', 'This space has editions, which are permanent records, so it cannot be deleted.');
     }
     throw error;
