@@ -1,7 +1,7 @@
 // Benchmark of lib/pack (`npm run bench:pack`): one stimulus pack end to end — Rings 10 × 100 + centre (1,001
 // layout stimuli) plus two boundaries' prototypes, 512 samples, 512 × 512 PNG, the three model RDMs, tables,
-// checksums and the zip streamed to a temporary file. A worker_threads pool (one worker per core) renders the
-// PNGs and runs lib/pack's jobs (contour and silhouette RDM rows, RDM table lines, perimeters) while the main
+// checksums and the zip streamed to a temporary file. The job worker's thread pool (PackPool, one thread per core)
+// renders the PNGs and runs lib/pack's jobs (contour and silhouette RDM rows, RDM table lines, perimeters) while the main
 // thread does the rest. A script, not a test: the figures depend on the machine and its load.
 // Prints one JSON line: stimuli, seconds, stimuli_per_s, peak_rss_mb, cpu_s (all threads), load average,
 // breakdown (ms per stage).
@@ -10,68 +10,8 @@ import { createWriteStream } from 'node:fs';
 import { mkdtemp, rm, stat } from 'node:fs/promises';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { Worker } from 'node:worker_threads';
-import { buildPack, type PackInput, type PackJob, type PackJobResult, type PackPngRequest } from '../lib/pack/index';
-import type { PngRequest } from '../lib/render/render-png';
-
-const TSX_API = import.meta.resolve('tsx/esm/api');
-const WORKER_ENTRY = new URL('./png-render-worker.ts', import.meta.url).href;
-
-/** A pool of workers for PNGs and pack jobs: requests spread round-robin, each worker keeps several in flight. */
-class PackPool {
-  private readonly workers: Worker[];
-  private readonly pending = new Map<number, { resolve: (b: never) => void; reject: (e: Error) => void }>();
-  private seq = 0;
-
-  constructor(size: number) {
-    this.workers = Array.from({ length: size }, () => {
-      // Node 20 does not pass the tsx loader on to worker threads: the worker registers it, then loads the entry.
-      const bootstrap = `import(${JSON.stringify(TSX_API)}).then((tsx) => { tsx.register(); return import(${JSON.stringify(WORKER_ENTRY)}); });`;
-      const worker = new Worker(bootstrap, { eval: true });
-      worker.on('message', (m: { seq: number; bytes?: Uint8Array; result?: PackJobResult; error?: string }) => {
-        const job = this.pending.get(m.seq);
-        if (!job) return;
-        this.pending.delete(m.seq);
-        const value = m.bytes ?? m.result;
-        if (value) job.resolve(value as never);
-        else job.reject(new Error(m.error ?? 'worker failed'));
-      });
-      worker.on('error', (error) => {
-        for (const job of this.pending.values()) job.reject(error);
-        this.pending.clear();
-      });
-      return worker;
-    });
-  }
-
-  render = (request: PackPngRequest): Promise<Uint8Array> => {
-    const seq = this.seq++;
-    const { svg, sizePx, channels } = request;
-    const message: { seq: number; request: PngRequest } = { seq, request: { svg, sizePx, channels } };
-    return new Promise((resolve, reject) => {
-      this.pending.set(seq, { resolve, reject });
-      (this.workers[seq % this.workers.length] as Worker).postMessage(message);
-    });
-  };
-
-  run = <J extends PackJob>(job: J): Promise<PackJobResult<J['kind']>> => {
-    const seq = this.seq++;
-    return new Promise((resolve, reject) => {
-      this.pending.set(seq, { resolve, reject });
-      (this.workers[seq % this.workers.length] as Worker).postMessage({ seq, job });
-    });
-  };
-
-  /** Resolves once every worker has loaded sharp (a first tiny render each). */
-  async warm(): Promise<void> {
-    const svg = '<svg xmlns="http://www.w3.org/2000/svg" width="8" height="8"><rect width="8" height="8"/></svg>';
-    await Promise.all(this.workers.map(() => this.render({ id: 'warm', svg, sizePx: 8, channels: 'grey' })));
-  }
-
-  close(): Promise<number[]> {
-    return Promise.all(this.workers.map((w) => w.terminate()));
-  }
-}
+import { buildPack, type PackInput } from '../lib/pack/index';
+import { PackPool } from '../lib/server/jobs/pack-pool';
 
 /** Bench input: a radial seed with two lobe axes, Rings 10 × 100, a 512-px canvas on a 1920-px display. */
 function benchInput(): PackInput {

@@ -7,17 +7,17 @@ import { createDb } from '@/db/client';
 import { getEnv } from '@/lib/server/env';
 import { startBoss } from '@/lib/server/jobs/boss';
 import { startPackWorker } from '@/lib/server/jobs/pack-worker';
-import { PngPool } from '@/lib/server/jobs/png-pool';
+import { PackPool } from '@/lib/server/jobs/pack-pool';
 import { startRunOrderWorker } from '@/lib/server/jobs/run-order-worker';
 
 const env = getEnv();
 const db = createDb(env.DATABASE_URL, 4);
-const pool = new PngPool(env.PACK_RENDER_THREADS);
+const pool = new PackPool(env.PACK_RENDER_THREADS);
 await pool.warm();
 const boss = await startBoss({ supervise: true });
 const stopWorking = await startPackWorker({ db, boss, pool });
 const stopSearching = await startRunOrderWorker({ db, boss });
-console.log(`[worker] taking pack jobs with ${pool.size} render threads, and run order searches`);
+console.log(`[worker] taking pack jobs with ${pool.size} pack threads, and run order searches`);
 
 // An optional health port, for process supervisors and the e2e harness.
 const healthPort = Number(process.env.WORKER_HEALTH_PORT ?? 0);

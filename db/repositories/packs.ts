@@ -9,6 +9,7 @@ export type PackListRow = Omit<PackRow, 'manifest' | 'sequences'> & {
   edition_number: number;
   edition_state: 'draft' | 'in_review' | 'approved' | 'returned';
   edition_hash: string;
+  edition_created_at: Date;
   created_by_name: string | null;
 };
 
@@ -47,6 +48,7 @@ function withJoins(db: DbHandle) {
       'editions.number as edition_number',
       'editions.state as edition_state',
       'editions.content_hash as edition_hash',
+      'editions.created_at as edition_created_at',
       'users.name as created_by_name',
     ]);
 }

@@ -1,6 +1,7 @@
 import 'server-only';
 import type PgBoss from 'pg-boss';
 import type { Db } from '@/db/client';
+import type { PackJobRunner } from '@/lib/pack/pack-job';
 import type { PackPngRequest } from '@/lib/pack/types';
 import { logEvent } from '../log';
 import { PACK_QUEUE, type PackJobData } from './boss';
@@ -11,13 +12,13 @@ import { runPackJob } from './run-pack-job';
  * pool). Any number of these processes, on any machines sharing the database and the object store, share the
  * queue. Returns a stop function that waits for the job in hand.
  */
-export async function startPackWorker({ db, boss, pool, pollingIntervalSeconds = 1 }: { db: Db; boss: PgBoss; pool: { render: (request: PackPngRequest) => Promise<Uint8Array> }; pollingIntervalSeconds?: number }): Promise<() => Promise<void>> {
+export async function startPackWorker({ db, boss, pool, pollingIntervalSeconds = 1 }: { db: Db; boss: PgBoss; pool: { render: (request: PackPngRequest) => Promise<Uint8Array>; run?: PackJobRunner }; pollingIntervalSeconds?: number }): Promise<() => Promise<void>> {
   await boss.work<PackJobData>(PACK_QUEUE, { batchSize: 1, includeMetadata: true, pollingIntervalSeconds }, async (jobs) => {
     // Handlers receive an array of jobs, even with a batch size of 1.
     for (const job of jobs) {
       const attempt = job.retryCount + 1;
       logEvent('info', 'pack job started', { packId: job.data.packId, jobId: job.id, attempt });
-      const outcome = await runPackJob(db, job.data.packId, { renderPng: pool.render, attempt, finalAttempt: job.retryCount >= job.retryLimit });
+      const outcome = await runPackJob(db, job.data.packId, { renderPng: pool.render, ...(pool.run ? { runJob: pool.run } : {}), attempt, finalAttempt: job.retryCount >= job.retryLimit });
       logEvent('info', 'pack job ended', { packId: job.data.packId, outcome });
     }
   });

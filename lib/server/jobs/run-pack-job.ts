@@ -8,6 +8,7 @@ import type { Db } from '@/db/client';
 import { getEditionSnapshot } from '@/db/repositories/editions';
 import { getPack, getPackSequences, isCancelRequested, updatePack } from '@/db/repositories/packs';
 import { buildPack } from '@/lib/pack/build-pack';
+import type { PackJobRunner } from '@/lib/pack/pack-job';
 import type { PackInput, PackPngRequest, PackStage } from '@/lib/pack/types';
 import type { DisplayProfile, RenderOptions } from '@/lib/render/types';
 import { EditionSnapshotSchema } from '@/lib/schemas/edition';
@@ -20,6 +21,8 @@ class Cancelled extends Error {}
 
 export interface PackJobContext {
   renderPng: (request: PackPngRequest) => Promise<Uint8Array>;
+  /** Runs lib/pack's heavy pure jobs (RDM rows, table lines, perimeters) on the pool's threads; absent: here. */
+  runJob?: PackJobRunner;
   /** 1 for the first try. */
   attempt: number;
   /** No retry follows a failure of this attempt. */
@@ -71,7 +74,7 @@ export async function runPackJob(db: Db, packId: string, ctx: PackJobContext): P
   try {
     const snapshot = EditionSnapshotSchema.parse(await getEditionSnapshot(db, row.edition_id));
     const input: PackInput = {
-      edition: { spaceName: row.space_name, number: row.edition_number, contentHash: row.edition_hash, state: row.edition_state, createdAt: await editionCreatedAt(db, row.edition_id) },
+      edition: { spaceName: row.space_name, number: row.edition_number, contentHash: row.edition_hash, state: row.edition_state, createdAt: zipEntryDate(row.edition_created_at) },
       definition: { seed: snapshot.seed.descriptor as ShapeDescriptor, ...snapshot.definition } as PackInput['definition'],
       boundaries: snapshot.boundaries.map((b) => ({ key: b.key, ...(b.label ? { label: b.label } : {}), angleDeg: b.angleDeg, prototypeDistance: b.prototypeDistance })),
       profile: row.profile as DisplayProfile,
@@ -84,6 +87,7 @@ export async function runPackJob(db: Db, packId: string, ctx: PackJobContext): P
         checkCancel();
         return ctx.renderPng(request);
       },
+      ...(ctx.runJob ? { runJob: ctx.runJob } : {}),
       sha256Hex: (bytes) => createHash('sha256').update(bytes).digest('hex'),
       onProgress: (s: PackStage, fraction) => {
         checkCancel();
@@ -170,8 +174,7 @@ export async function runPackJob(db: Db, packId: string, ctx: PackJobContext): P
   }
 }
 
-async function editionCreatedAt(db: Db, editionId: string): Promise<string> {
-  const r = await db.selectFrom('editions').select('created_at').where('id', '=', editionId).executeTakeFirstOrThrow();
-  // The zip's entry dates: whole seconds, UTC.
-  return new Date(Math.floor(r.created_at.getTime() / 1000) * 1000).toISOString().replace('.000Z', 'Z');
+/** The zip's entry dates: the edition's creation, in whole seconds, UTC. */
+function zipEntryDate(createdAt: Date): string {
+  return new Date(Math.floor(createdAt.getTime() / 1000) * 1000).toISOString().replace('.000Z', 'Z');
 }

@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import yauzl from 'yauzl';
 import { buildPack, PackError, runPackJob, type BuiltPack, type PackInput, type PackJobRunner, type PackManifest } from '@/lib/pack';
 import { renderPng } from '@/lib/render/render-png';
+import { PackPool } from '@/lib/server/jobs/pack-pool';
 
 const INPUT: PackInput = {
   edition: { spaceName: 'Test lobes', number: 3, contentHash: 'c0ffee'.padEnd(64, '0'), state: 'approved', createdAt: '2024-05-06T07:08:10Z' },
@@ -226,6 +227,16 @@ describe('stimulus pack zip', () => {
     expect(handedOut).toBeGreaterThan(5);
     expect(sha(elsewhere)).toBe(sha(zip));
   });
+
+  it("is byte-identical on the job worker's threads (PackPool: PNGs and jobs in worker threads)", async () => {
+    const pool = new PackPool(2);
+    try {
+      const threaded = await zipBytes(await buildPack(INPUT, { ...backends, renderPng: pool.render, runJob: pool.run }));
+      expect(sha(threaded)).toBe(sha(zip));
+    } finally {
+      await pool.close();
+    }
+  }, 60_000);
 
   it('a pack from an edition that is not approved says so at the top of its manifest', async () => {
     const draft = await buildPack({ ...INPUT, edition: { ...INPUT.edition, state: 'in_review' } }, backends);

@@ -1,18 +1,18 @@
-// Worker-thread entry of the pack pool: rasterises stimulus SVGs with sharp (lib/render/render-png.ts) and runs
+// Worker-thread entry of the pack pool (pack-pool.ts): rasterises stimulus SVGs with sharp (lib/render/render-png.ts) and runs
 // lib/pack's pure jobs (RDM rows, RDM table lines, perimeters; runPackJob). Messages:
 // in { seq, request: PngRequest } → out { seq, bytes } (transferred) or { seq, error };
 // in { seq, job: PackJob } → out { seq, result } (its bytes or values transferred) or { seq, error }.
 // sharp renders on libuv's thread pool, so a job running on this thread does not hold up PNGs already started.
 import { parentPort } from 'node:worker_threads';
 import sharp from 'sharp';
-import { runPackJob, type PackJob, type PackJobResult } from '../lib/pack/pack-job';
-import { renderPng, type PngRequest } from '../lib/render/render-png';
+import { runPackJob, type PackJob, type PackJobResult } from '@/lib/pack/pack-job';
+import { renderPng, type PngRequest } from '@/lib/render/render-png';
 
 // One libvips thread per job: the pool's threads already spread the jobs over the cores.
 sharp.concurrency(1);
 
 const port = parentPort;
-if (!port) throw new Error('png-render-worker runs only as a worker thread');
+if (!port) throw new Error('pack-thread.ts runs only as a worker thread');
 
 const message = (error: unknown): string => (error instanceof Error ? error.message : String(error));
 
