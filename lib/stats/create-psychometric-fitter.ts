@@ -70,7 +70,7 @@ const PIVOT_TOLERANCE = 1e-12;
 /** Two local maxima are one when threshold (in spreads), ln spread and λ (in units of max) differ by less. */
 const MODE_SEPARATION = 1e-3;
 // Local copies of the shared stopping rules: module bindings can compile to property reads in hot loops.
-const { BOUND_TOLERANCE, MAX_HALVINGS, MAX_ITERATIONS, VARIANCE_FLOOR } = limits;
+const { BOUND_TOLERANCE, LOG_LIKELIHOOD_TOLERANCE, MAX_HALVINGS, MAX_ITERATIONS, VARIANCE_FLOOR } = limits;
 /** Variables: 0 the offset c, 1 the inverse spread b, 2 the lapse λ. */
 const VARIABLES = 3;
 
@@ -377,12 +377,14 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
       // Halve the step until ℓ does not fall.
       let t = tMax;
       let accepted = false;
+      let gain = 0;
       for (let h = 0; h < MAX_HALVINGS; h++) {
         const cNew = c + t * dc;
         const bNew = t === tMax && limiter === 1 ? (db > 0 ? bHigh : bLow) : Math.min(bHigh, Math.max(bLow, b + t * db));
         const lNew = t === tMax && limiter === 2 ? (dl > 0 ? lapseMax : 0) : Math.min(lapseMax, Math.max(0, lapse + t * dl));
         evaluate(cNew, bNew, lapseFree ? lNew : lapse, trial);
         if ((trial[LL] as number) >= (current[LL] as number)) {
+          gain = (trial[LL] as number) - (current[LL] as number);
           c = cNew;
           b = bNew;
           if (lapseFree) lapse = lNew;
@@ -393,7 +395,9 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
         t /= 2;
       }
       lastDb = db;
-      if (!accepted || decrement < DECREMENT_TOLERANCE || (isNewton && t === 1 && decrement < newtonTolerance)) break;
+      // A step that gains (next to) nothing is stuck on a ridge where ℓ is flat and the model is not: on a steep
+      // maximum with λ held, scoring can step back and forth between two points of equal ℓ.
+      if (!accepted || gain < LOG_LIKELIHOOD_TOLERANCE || decrement < DECREMENT_TOLERANCE || (isNewton && t === 1 && decrement < newtonTolerance)) break;
     }
 
     // Separable (or flat) data gain ever less while b still creeps toward a bound, so the decrement stops the
