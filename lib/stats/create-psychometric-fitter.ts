@@ -141,10 +141,11 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
   }
 
   /**
-   * ℓ, the score and the negative observed Hessian at (c, b, λ) into `out`. The expected information, needed only
-   * where the observed Hessian is not negative definite, is left to `addInformation`.
+   * ℓ, the score and the negative observed Hessian at (c, b, λ) into `out` (ℓ alone when `derivatives` is false).
+   * The expected information, needed only where the observed Hessian is not negative definite, is left to
+   * `addInformation`.
    */
-  function evaluate(c: number, b: number, lapse: number, out: Float64Array): void {
+  function evaluate(c: number, b: number, lapse: number, out: Float64Array, derivatives = true): void {
     const s = 1 - 2 * lapse;
     let ll = 0;
     let g0 = 0, g1 = 0, g2 = 0;
@@ -193,6 +194,7 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
         r1 -= q;
         r2 += q * inverse;
       }
+      if (!derivatives) continue;
       // ∂ψ/∂(c, b, λ) and the second derivatives ∂²ψ (∂²ψ/∂λ² = 0).
       const dc = s * f;
       const db = dc * u;
@@ -406,8 +408,10 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
       const bound = lastDb > 0 ? bHigh : bLow;
       if (bound !== b) {
         const cBound = c * (bound / b);
-        evaluate(cBound, bound, lapse, trial);
+        // ℓ alone first: the bound rarely wins, and only then are its derivatives needed.
+        evaluate(cBound, bound, lapse, trial, false);
         if ((trial[LL] as number) >= (current[LL] as number)) {
+          evaluate(cBound, bound, lapse, trial);
           c = cBound;
           b = bound;
           swap();
