@@ -384,7 +384,9 @@ export function createPsychometricFitter(x: readonly number[], n: readonly numbe
         const cNew = c + t * dc;
         const bNew = t === tMax && limiter === 1 ? (db > 0 ? bHigh : bLow) : Math.min(bHigh, Math.max(bLow, b + t * db));
         const lNew = t === tMax && limiter === 2 ? (dl > 0 ? lapseMax : 0) : Math.min(lapseMax, Math.max(0, lapse + t * dl));
-        evaluate(cNew, bNew, lapseFree ? lNew : lapse, trial);
+        // The step that ends the climb once accepted needs ℓ alone there: nothing after the climb uses derivatives.
+        const ends = decrement < DECREMENT_TOLERANCE || (isNewton && t === 1 && decrement < newtonTolerance);
+        evaluate(cNew, bNew, lapseFree ? lNew : lapse, trial, !ends);
         if ((trial[LL] as number) >= (current[LL] as number)) {
           gain = (trial[LL] as number) - (current[LL] as number);
           c = cNew;
