@@ -1,12 +1,8 @@
 'use client';
 
 import { useEffect, useRef, useState } from 'react';
+import { CARD_HEIGHT_MM, DISTANCE_RANGE_CM, distanceFromBlindSpotCm, isPlausibleDistanceCm, pixelsPerMm } from '@/lib/take/screen-geometry';
 
-/** ID-1 card (ISO/IEC 7810): 85.60 × 53.98 mm. */
-const CARD_WIDTH_MM = 85.6;
-const CARD_HEIGHT_MM = 53.98;
-/** Angle between fixation and the centre of the blind spot (Rohrschneider 2004), used by the blind-spot sweep (Li, Joo, Yeatman & Reinecke 2020). */
-const BLIND_SPOT_DEG = 15.5;
 const SWEEPS = 3;
 /** The sweeping dot's speed in mm per second. */
 const SWEEP_MM_PER_S = 30;
@@ -47,7 +43,7 @@ export function ParticipantScreenCheck({ onDone }: { onDone: (check: ScreenCheck
   const [dotPx, setDotPx] = useState(0);
   const [error, setError] = useState<string | null>(null);
   const sweepRef = useRef<{ start: number; raf: number } | null>(null);
-  const pxPerMm = cardPx / CARD_WIDTH_MM;
+  const pxPerMm = pixelsPerMm(cardPx);
 
   useEffect(() => {
     void measureRefresh(REFRESH_FRAMES).then(setRefreshHz);
@@ -58,7 +54,9 @@ export function ParticipantScreenCheck({ onDone }: { onDone: (check: ScreenCheck
     cancelAnimationFrame(sweepRef.current.raf);
     sweepRef.current = null;
     setIsSweeping(false);
-    setSweeps((s) => [...s, dotPx]);
+    // The last three sweeps count: one more replaces the oldest.
+    setSweeps((s) => [...s, dotPx].slice(-SWEEPS));
+    setError(null);
   };
   const startSweep = () => {
     setIsSweeping(true);
@@ -81,12 +79,12 @@ export function ParticipantScreenCheck({ onDone }: { onDone: (check: ScreenCheck
     return () => window.removeEventListener('keydown', onKey);
   });
 
-  const sweepCm = sweeps.length ? sweeps.reduce((a, b) => a + b, 0) / sweeps.length / pxPerMm / Math.tan((BLIND_SPOT_DEG * Math.PI) / 180) / 10 : null;
+  const sweepCm = distanceFromBlindSpotCm(sweeps, pxPerMm);
   const distanceCm = method === 'typed' ? Number(typedCm) : sweeps.length >= SWEEPS ? sweepCm : null;
 
   const finish = async () => {
-    if (!distanceCm || !(distanceCm >= 20 && distanceCm <= 200)) {
-      setError(method === 'typed' ? 'Type your viewing distance in centimetres (20 to 200).' : `Do the sweep ${SWEEPS} times first.`);
+    if (!isPlausibleDistanceCm(distanceCm)) {
+      setError(method === 'typed' ? `Type your viewing distance in centimetres (${DISTANCE_RANGE_CM.min} to ${DISTANCE_RANGE_CM.max}).` : `Do the sweep ${SWEEPS} times first.`);
       return;
     }
     try {
@@ -103,7 +101,7 @@ export function ParticipantScreenCheck({ onDone }: { onDone: (check: ScreenCheck
       <div className="space-y-3">
         <h2 className="text-lg font-medium">1. Size of the screen</h2>
         <p>Hold a bank card, ID card or any card of that standard size against the screen. Drag the slider until the outline below is exactly as wide as your card.</p>
-        <div data-testid="card-outline" className="rounded-lg border-2 border-graphite" style={{ width: cardPx, height: (cardPx * CARD_HEIGHT_MM) / CARD_WIDTH_MM }} />
+        <div data-testid="card-outline" className="rounded-lg border-2 border-graphite" style={{ width: cardPx, height: CARD_HEIGHT_MM * pxPerMm }} />
         <label className="block">
           <span className="block text-sm">Card width on screen (px)</span>
           <input type="range" min={120} max={900} value={cardPx} onChange={(e) => setCardPx(Number(e.target.value))} className="w-full max-w-md" data-testid="card-size" aria-valuetext={`${cardPx} pixels`} />
@@ -115,8 +113,8 @@ export function ParticipantScreenCheck({ onDone }: { onDone: (check: ScreenCheck
         <h2 className="text-lg font-medium">2. Distance from the screen</h2>
         <fieldset className="flex gap-6">
           <legend className="sr-only">How to give the distance</legend>
-          <label><input type="radio" name="method" checked={method === 'typed'} onChange={() => setMethod('typed')} data-testid="distance-typed" /> I will type it</label>
-          <label><input type="radio" name="method" checked={method === 'blind-spot'} onChange={() => setMethod('blind-spot')} data-testid="distance-blind-spot" /> Estimate it for me</label>
+          <label><input type="radio" name="method" checked={method === 'typed'} onChange={() => { setMethod('typed'); setError(null); }} data-testid="distance-typed" /> I will type it</label>
+          <label><input type="radio" name="method" checked={method === 'blind-spot'} onChange={() => { setMethod('blind-spot'); setError(null); }} data-testid="distance-blind-spot" /> Estimate it for me</label>
         </fieldset>
         {method === 'typed' ? (
           <label className="block">
@@ -131,9 +129,9 @@ export function ParticipantScreenCheck({ onDone }: { onDone: (check: ScreenCheck
               {isSweeping && <div className="absolute top-1/2 h-4 w-4 -translate-y-1/2 rounded-full bg-category-vermilion" style={{ right: 40 + dotPx }} />}
             </div>
             <button type="button" className="rounded border border-accent px-3 py-1" onClick={isSweeping ? stopSweep : startSweep} data-testid="sweep">
-              {isSweeping ? 'The dot vanished' : `Start sweep ${Math.min(sweeps.length + 1, SWEEPS)} of ${SWEEPS}`}
+              {isSweeping ? 'The dot vanished' : sweeps.length >= SWEEPS ? 'Sweep once more' : `Start sweep ${sweeps.length + 1} of ${SWEEPS}`}
             </button>
-            {sweepCm !== null && <p className="font-mono text-sm tabular-nums">Estimated distance so far: {sweepCm.toFixed(0)} cm</p>}
+            {sweepCm !== null && <p className="font-mono text-sm tabular-nums" data-testid="sweep-estimate" data-separations-px={sweeps.join(' ')} data-px-per-mm={pxPerMm}>Estimated distance so far: {sweepCm.toFixed(0)} cm</p>}
           </div>
         )}
       </div>
