@@ -59,6 +59,11 @@ export const SpaceSettingsSchema = z.object({
   normalization: SpaceNormalizationSchema,
   /** Re-map the radius per direction so contour distance grows evenly (computed by the server). */
   equalize: z.boolean().default(false),
+  /**
+   * A radius re-mapping given with the space instead (a perceptual equalisation from a norming study); absent on
+   * spaces made by hand. Cannot be combined with `equalize`.
+   */
+  radiusMap: EqualizationSchema.optional(),
 });
 export type SpaceSettings = z.infer<typeof SpaceSettingsSchema>;
 
