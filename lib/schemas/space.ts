@@ -86,6 +86,8 @@ export const ShapeSpaceSchema = z.object({
   layout: SpaceLayoutSchema,
   normalization: SpaceNormalizationSchema,
   equalization: EqualizationSchema.nullable(),
+  /** Where the re-mapping came from: contour equalisation on save, a norming study's perceptual one, or none. */
+  equalizationSource: z.enum(['contour', 'study']).nullable(),
   /** Anisotropy index (largest / smallest contour-distance growth rate across directions) as designed, and after equalisation. */
   anisotropy: z.object({ designed: z.number().nullable(), equalized: z.number().nullable() }),
   stimulusCount: z.number().int(),

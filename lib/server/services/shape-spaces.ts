@@ -63,6 +63,7 @@ function toShapeSpace(row: ShapeSpaceListRow): ShapeSpace {
     layout: settings.layout,
     normalization: settings.normalization,
     equalization: row.equalization === null ? null : EqualizationSchema.parse(row.equalization),
+    equalizationSource: settings.radiusMap ? 'study' : row.equalization === null ? null : 'contour',
     anisotropy: row.anisotropy,
     stimulusCount: row.stimulus_count,
     version: row.version,
