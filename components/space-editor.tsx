@@ -395,7 +395,7 @@ export function SpaceEditor({
               {initial ? (
                 <span className="tabular mt-1 block text-xs text-graphite-muted" data-testid="anisotropy-figures">
                   Anisotropy index as designed {fmt(initial.anisotropy.designed)}
-                  {initial.anisotropy.equalized !== null ? `, after equalising ${fmt(initial.anisotropy.equalized)}` : ''}
+                  {initial.anisotropy.equalized !== null ? `, ${initial.equalizationSource === 'study' ? "with the study's re-mapping" : 'after equalising'} ${fmt(initial.anisotropy.equalized)}` : ''}
                 </span>
               ) : null}
             </span>

@@ -31,6 +31,7 @@ test('the pair-similarity demo study, rated by a scripted participant, shows the
   await take.goto(new URL(inviteUrl).pathname);
   await participant.consent();
   await participant.checkScreen(57);
+  await expect(take.getByTestId('begin')).toBeVisible();
   const sessions = (await (await page.request.get(`${api}/studies/${study.id}/sessions`)).json()) as { items: { participant: number }[] };
   const index = sessions.items[0]!.participant;
   const plan = (await (await page.request.get(`${api}/studies/${study.id}/plan?participant=${index}`)).json()) as { trials: { task: string; first: string; second: string }[] };

@@ -116,8 +116,8 @@ export default async function StudySimilarityPage({ params }: { params: Promise<
         Perceptual vs designed similarity
       </h1>
       <p className="tabular mb-6 text-sm text-graphite-soft" data-testid="similarity-facts">
-        {v.edition.spaceName}, edition {v.edition.number} (content hash <span className="font-mono">{v.edition.contentHash.slice(0, 12)}…</span>) · {v.ratings.count} ratings from {v.ratings.participants}{' '}
-        participants · {v.stimuli.length} stimuli rated{v.ratings.excludedSessions > 0 ? ` · ${v.ratings.excludedSessions} excluded sessions left out` : ''}
+        {v.edition.spaceName}, edition {v.edition.number} (content hash <span className="font-mono">{v.edition.contentHash.slice(0, 12)}…</span>) · {v.ratings.count} ratings from {v.ratings.participants} {v.ratings.participants === 1 ? 'participant' : 'participants'} ·{' '}
+        {v.stimuli.length} stimuli rated{v.ratings.excludedSessions > 0 ? ` · ${v.ratings.excludedSessions} excluded sessions left out` : ''}
       </p>
       <div className="space-y-10">
         <section aria-labelledby="rdm-heading" className="space-y-4">
@@ -132,7 +132,7 @@ export default async function StudySimilarityPage({ params }: { params: Promise<
           ) : (
             <Notice testId="no-ratings">This study has no pair-similarity ratings yet. The matrices appear once participants have rated pairs.</Notice>
           )}
-          {heatmaps ? <div className="overflow-x-auto" data-testid="rdm-heatmaps" dangerouslySetInnerHTML={{ __html: heatmaps }} /> : null}
+          {heatmaps ? <div className="[&_svg]:h-auto [&_svg]:max-w-full" data-testid="rdm-heatmaps" dangerouslySetInnerHTML={{ __html: heatmaps }} /> : null}
           {v.perceptual ? <CorrelationTable v={v} /> : null}
           {v.perceptual ? (
             <p className="flex flex-wrap gap-x-4 gap-y-1 text-sm" data-testid="similarity-downloads">
@@ -154,7 +154,7 @@ export default async function StudySimilarityPage({ params }: { params: Promise<
           </h2>
           {v.mds && map ? (
             <div className="grid gap-8 lg:grid-cols-[auto_1fr]">
-              <div data-testid="mds-map" dangerouslySetInnerHTML={{ __html: map }} />
+              <div className="[&_svg]:h-auto [&_svg]:max-w-full" data-testid="mds-map" dangerouslySetInnerHTML={{ __html: map }} />
               <div className="space-y-3 text-sm">
                 <p>
                   Torgerson scaling of the perceptual RDM to two dimensions, rotated, reflected, scaled and shifted onto the designed positions (Procrustes): scale{' '}
