@@ -85,7 +85,7 @@ export function SpaceEditor({
   }, [seedAssessment]);
   const [settings, setSettings] = useState<SpaceSettings>(() =>
     initial
-      ? { axes: initial.axes, extent: initial.extent, layout: initial.layout, normalization: initial.normalization, equalize: initial.equalization !== null }
+      ? { axes: initial.axes, extent: initial.extent, layout: initial.layout, normalization: initial.normalization, equalize: initial.equalizationSource === 'contour' }
       : defaultSettings(firstSeed!.descriptor),
   );
   const [selected, setSelected] = useState<string | null>(null);
@@ -388,13 +388,14 @@ export function SpaceEditor({
             </label>
           </div>
           <label className="flex items-start gap-2">
-            <input type="checkbox" checked={settings.equalize} onChange={(e) => setSettings((s) => ({ ...s, equalize: e.target.checked }))} data-testid="equalize" className="mt-1" />
+            <input type="checkbox" checked={settings.equalize} disabled={initial?.equalizationSource === 'study'} onChange={(e) => setSettings((s) => ({ ...s, equalize: e.target.checked }))} data-testid="equalize" className="mt-1" />
             <span>
               Equalise: re-map the radius per direction so contour distance grows at the same rate everywhere (computed on save).
+              {initial?.equalizationSource === 'study' ? <span className="mt-1 block text-xs text-graphite-muted">This space keeps the radius re-mapping it was made with from a norming study.</span> : null}
               {initial ? (
                 <span className="tabular mt-1 block text-xs text-graphite-muted" data-testid="anisotropy-figures">
                   Anisotropy index as designed {fmt(initial.anisotropy.designed)}
-                  {initial.anisotropy.equalized !== null ? `, after equalising ${fmt(initial.anisotropy.equalized)}` : ''}
+                  {initial.anisotropy.equalized !== null ? `, ${initial.equalizationSource === 'study' ? "with the study's re-mapping" : 'after equalising'} ${fmt(initial.anisotropy.equalized)}` : ''}
                 </span>
               ) : null}
             </span>

@@ -280,6 +280,19 @@ export interface TrialResponsesTable {
   received_at: Generated<Date>;
 }
 
+/** A space made from a study's perceptual equalisation: the study (name kept), the basis and the suggestion applied. */
+export interface SpaceStudyLinksTable {
+  space_id: string;
+  lab_id: string;
+  study_id: string | null;
+  study_name: string;
+  edition_id: string | null;
+  basis: 'slopes' | 'map';
+  suggestion: ColumnType<unknown, string, string>;
+  created_by: string | null;
+  created_at: Generated<Date>;
+}
+
 export type RunOrderState = 'ready' | 'queued' | 'running' | 'failed';
 
 /** A run order of an edition: its definition (with the seed) and, once built, the order itself. */
@@ -319,6 +332,7 @@ export interface Database {
   run_orders: RunOrdersTable;
   study_sessions: StudySessionsTable;
   trial_responses: TrialResponsesTable;
+  space_study_links: SpaceStudyLinksTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -338,3 +352,4 @@ export type StudyRow = Selectable<StudiesTable>;
 export type RunOrderRow = Selectable<RunOrdersTable>;
 export type StudySessionRow = Selectable<StudySessionsTable>;
 export type TrialResponseRow = Selectable<TrialResponsesTable>;
+export type SpaceStudyLinkRow = Selectable<SpaceStudyLinksTable>;

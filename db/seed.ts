@@ -13,7 +13,7 @@ import { insertEdition, listEditions, transitionEdition } from './repositories/e
 import { insertDisplayProfile, listDisplayProfiles } from './repositories/display-profiles';
 import { buildSnapshot, contentHash } from '@/lib/edition';
 import { ENGINE_VERSION } from '@/lib/shape/engine-version';
-import { DEFAULT_CATEGORISATION } from '@/lib/schemas/study';
+import { DEFAULT_CATEGORISATION, DEFAULT_SIMILARITY } from '@/lib/schemas/study';
 import { checkStudyDesign, type StudyDesign } from '@/lib/study';
 import { insertStudy, listStudies } from './repositories/studies';
 import { buildRunOrderOf } from '@/lib/run-order-build';
@@ -106,6 +106,32 @@ export const DEMO_STUDY = {
     targetParticipants: 16,
   },
   design: { seed: 4711, stimulusSizeDeg: 4, categorisation: { ...DEFAULT_CATEGORISATION, extent: 0.9, repetitions: 3 }, similarity: null } satisfies StudyDesign,
+} as const;
+
+/** A small space for the pair-similarity pilot: Rings 2 × 4 + centre around the pebble (9 stimuli, 36 pairs). */
+export const DEMO_PAIR_SPACE = {
+  name: 'Pebble pairs (demo)',
+  seed: 'Harbour pebble',
+  settings: { ...DEMO_SPACE.settings, layout: { kind: 'rings', rings: 2, spokes: 4 } },
+} as const;
+
+/** The demo lab's pair-similarity pilot (a Draft) on that space's Approved edition 1: every pair twice, short timing. */
+export const DEMO_PAIR_STUDY = {
+  name: 'Pilot pair similarity',
+  texts: {
+    consentText:
+      'You are invited to a 5-minute study on how similar simple shapes look. You will rate pairs of shapes from 1 to 7. Taking part is voluntary and you may stop at any time without giving a reason. No names or e-mail addresses are recorded. By continuing you agree to take part.',
+    instructionsText: 'Two shapes appear side by side. Rate how similar they look, from 1 (very different) to 7 (very similar), with the number keys or the buttons.',
+    debriefText: 'Thank you. This pilot checks that the designed distances between the shapes match how different they look.',
+    finishCodePrefix: 'HALDEN',
+    targetParticipants: 12,
+  },
+  design: {
+    seed: 8123,
+    stimulusSizeDeg: 4,
+    categorisation: null,
+    similarity: { ...DEFAULT_SIMILARITY, presentation: 'simultaneous', repetitions: 2, timing: { fixationMs: 150, stimulusMs: 300, gapMs: 100, responseMs: 6000, itiMs: 200 } },
+  } satisfies StudyDesign,
 } as const;
 
 export async function seedDemo(db: Db): Promise<string> {
@@ -204,6 +230,58 @@ export async function seedDemo(db: Db): Promise<string> {
       const result = buildRunOrderOf(definition, ids);
       await insertRunOrder(trx, { labId: lab.id, editionId: edition1.id, name: DEMO_RUN_ORDER.name, definition, state: 'ready', result, createdBy: experimenter!.id });
       created.push(`run order ${DEMO_RUN_ORDER.name}`);
+    }
+
+    // The pair-similarity pilot: its own small space, an Approved edition 1 (no boundaries) and the Draft study.
+    if (!(await listShapeSpaces(trx, lab.id, { limit: 100 })).some((sp) => sp.name === DEMO_PAIR_SPACE.name)) {
+      const seedRow = (await listSeedShapes(trx, lab.id, { limit: 100 })).find((r) => r.name === DEMO_PAIR_SPACE.seed)!;
+      const seed = DEMO_SEED_SHAPES.find((x) => x.name === DEMO_PAIR_SPACE.seed)!.descriptor;
+      const definition = { seed, ...DEMO_PAIR_SPACE.settings, equalization: null };
+      const report = checkSpace(definition);
+      if (!report.ok) throw new Error(`demo pair space is invalid: ${report.failures.map((f) => f.reason).join('; ')}`);
+      await insertShapeSpace(trx, lab.id, designer!.id, {
+        name: DEMO_PAIR_SPACE.name,
+        seedShapeId: seedRow.id,
+        settings: DEMO_PAIR_SPACE.settings,
+        equalization: null,
+        anisotropy: { designed: anisotropyIndex(definition), equalized: null },
+        stimulusCount: report.count,
+      });
+      created.push(`space ${DEMO_PAIR_SPACE.name}`);
+    }
+    const pairSpace = (await listShapeSpaces(trx, lab.id, { limit: 100 })).find((sp) => sp.name === DEMO_PAIR_SPACE.name)!;
+    if ((await listEditions(trx, lab.id, pairSpace.id, { limit: 1 })).length === 0) {
+      const reviewer = await findUserByEmail(trx, DEMO_USERS.find((u) => u.role === 'reviewer')!.email);
+      const seed = DEMO_SEED_SHAPES.find((x) => x.name === DEMO_PAIR_SPACE.seed)!.descriptor;
+      const snapshot = buildSnapshot({
+        engineVersion: ENGINE_VERSION,
+        space: { id: pairSpace.id, name: pairSpace.name },
+        seed: { id: pairSpace.seed_shape_id, name: DEMO_PAIR_SPACE.seed },
+        definition: { seed, ...DEMO_PAIR_SPACE.settings, equalization: null },
+        boundaries: [],
+      });
+      const { id } = await insertEdition(trx, {
+        labId: lab.id,
+        spaceId: pairSpace.id,
+        number: 1,
+        snapshot,
+        contentHash: contentHash(snapshot),
+        engineVersion: ENGINE_VERSION,
+        stimulusCount: snapshot.stimuli.length,
+        changeNote: 'A small set for the pair-similarity pilot.',
+        authorId: designer!.id,
+      });
+      await transitionEdition(trx, id, 'draft', 'in_review', { submitted_by: designer!.id, submitted_at: new Date() });
+      await transitionEdition(trx, id, 'in_review', 'approved', { decided_by: reviewer!.id, decided_at: new Date(), decision_note: 'Approved for the similarity pilot.' });
+      created.push(`approved edition 1 of ${DEMO_PAIR_SPACE.name}`);
+    }
+    if (!(await listStudies(trx, lab.id, { limit: 100 })).some((st) => st.name === DEMO_PAIR_STUDY.name)) {
+      const edition = (await listEditions(trx, lab.id, pairSpace.id, { limit: 1 }))[0]!;
+      const issues = checkStudyDesign(DEMO_PAIR_STUDY.design, edition.stimulus_count);
+      if (issues.length) throw new Error(`demo pair study is invalid: ${issues.map((i) => i.message).join('; ')}`);
+      const experimenter = await findUserByEmail(trx, DEMO_USERS.find((u) => u.role === 'experimenter')!.email);
+      await insertStudy(trx, lab.id, experimenter!.id, { name: DEMO_PAIR_STUDY.name, ...DEMO_PAIR_STUDY.texts }, { editionId: edition.id, design: DEMO_PAIR_STUDY.design, editionWarning: null });
+      created.push(`study ${DEMO_PAIR_STUDY.name}`);
     }
 
     if ((await listDisplayProfiles(trx, lab.id, { limit: 100 })).length === 0) {

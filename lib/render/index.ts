@@ -46,3 +46,6 @@ export { stimulusMeasure } from './stimulus-measure';
 export { frameStimuli } from './frame-stimuli';
 export { drawnSize } from './drawn-size';
 export { stimulusSvg, stimulusSvgPair, type StimulusSvgOptions } from './stimulus-svg';
+export { escapeXml } from './escape-xml';
+export { rdmHeatmapsSvg, heatmapColour, HEATMAP_STEPS, type HeatmapPanel } from './rdm-heatmaps-svg';
+export { mdsMapSvg, type MdsMapPoint } from './mds-map-svg';

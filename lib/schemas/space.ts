@@ -59,6 +59,11 @@ export const SpaceSettingsSchema = z.object({
   normalization: SpaceNormalizationSchema,
   /** Re-map the radius per direction so contour distance grows evenly (computed by the server). */
   equalize: z.boolean().default(false),
+  /**
+   * A radius re-mapping given with the space instead (a perceptual equalisation from a norming study); absent on
+   * spaces made by hand. Cannot be combined with `equalize`.
+   */
+  radiusMap: EqualizationSchema.optional(),
 });
 export type SpaceSettings = z.infer<typeof SpaceSettingsSchema>;
 
@@ -81,6 +86,8 @@ export const ShapeSpaceSchema = z.object({
   layout: SpaceLayoutSchema,
   normalization: SpaceNormalizationSchema,
   equalization: EqualizationSchema.nullable(),
+  /** Where the re-mapping came from: contour equalisation on save, a norming study's perceptual one, or none. */
+  equalizationSource: z.enum(['contour', 'study']).nullable(),
   /** Anisotropy index (largest / smallest contour-distance growth rate across directions) as designed, and after equalisation. */
   anisotropy: z.object({ designed: z.number().nullable(), equalized: z.number().nullable() }),
   stimulusCount: z.number().int(),

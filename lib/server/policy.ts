@@ -26,6 +26,8 @@ export const POLICY = {
   'seed:write': DESIGN,
   'space:read': ALL,
   'space:write': DESIGN,
+  // A new space from a study's perceptual equalisation: it changes no existing space, so experimenters may too.
+  'space:derive': BOUNDARY,
   'boundary:write': BOUNDARY,
   'edition:read': ALL,
   'edition:freeze': DESIGN,
@@ -39,6 +41,7 @@ export const POLICY = {
   'study:read': ALL,
   'study:write': EXPERIMENT,
   'session:manage': EXPERIMENT,
+  'similarity:read': ALL,
   'runorder:read': ALL,
   'runorder:write': EXPERIMENT,
 } as const satisfies Record<string, readonly Role[]>;

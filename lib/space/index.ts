@@ -94,4 +94,5 @@ export { anisotropyFromRates } from './anisotropy-from-rates';
 export { anisotropyIndex } from './anisotropy-index';
 export { auditSpace, type AuditOptions } from './audit-space';
 export { equalizeSpace, type EqualizeOptions } from './equalize-space';
+export { rescaleEqualization } from './rescale-equalization';
 export { selectLayoutStimuli, type LayoutSelection } from './select-layout-stimuli';

@@ -43,3 +43,16 @@ export { combineChiSquareTests } from './combine-chi-square-tests';
 export { testNoBias, type NoBiasOptions } from './test-no-bias';
 export { slopeRatioInterval, type SlopeRatio } from './slope-ratio-interval';
 export { describeIsotropy, type IsotropyEvidence, type IsotropyVerdict } from './describe-isotropy';
+
+// Perceptual vs designed similarity
+export { pearson } from './pearson';
+export { spearman } from './spearman';
+export { checkSquareMatrix, type SquareMatrix } from './square-matrix';
+export { mantelTest, MIN_MANTEL_PERMUTATIONS, type MantelOptions, type MantelResult } from './mantel-test';
+export { symmetricEigen, type SymmetricEigen } from './symmetric-eigen';
+export { classicalMds, type ClassicalMds } from './classical-mds';
+export { procrustes, type ProcrustesFit } from './procrustes';
+export { perceptualRdm, type NoiseCeiling, type PairRating, type PerceptualRdm, type PerceptualRdmOptions } from './perceptual-rdm';
+export { directionData, type DirectionAnswer, type DirectionData } from './direction-data';
+export { radialRates, type MappedStimulus, type RadialRate } from './radial-rates';
+export { suggestEqualization, DEFAULT_MIN_SCALE, type DirectionRate, type EqualizationSuggestion } from './suggest-equalization';

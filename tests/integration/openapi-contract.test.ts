@@ -226,6 +226,12 @@ describe('the OpenAPI document and the API agree', () => {
       }],
       ['listStudyTrials', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
       ['downloadStudyTrialsCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      ['getStudySimilarity', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      ['downloadStudySimilarityCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+      // A categorisation-only study has no pair ratings, hence no RDMs, and one answer gives no slopes: both refusals are documented.
+      ['downloadStudySimilarityRdm', () => ({ as: 'token', params: { ...L(), studyId: ids.study!, rdm: 'design' }, status: 409 })],
+      ['createEqualizedSpace', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, body: { basis: 'slopes' }, status: 409 })],
+      ['getSpaceOrigin', () => ({ as: 'token', params: space(), status: 200 })],
       ['setStudySessionExclusion', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study!, sessionId: ids.session! }, body: { isExcluded: true, reason: 'Test run' }, status: 200 })],
       ['withdrawParticipantSession', () => ({ as: 'anonymous', body: { sessionCode: ids.sessionCode! }, status: 200 })],
       ['deleteStudySession', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study!, sessionId: ids.session! }, status: 204 })],

@@ -5,13 +5,13 @@ import { POLICY_ACTIONS, ROLES, can, type PolicyAction, type Role } from '@/lib/
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 
 // The roles as the product defines them (issue 3), written out independently of lib/server/policy.ts:
-// Owner: everything. Designer: seed shapes, spaces, boundaries, editions (freeze, submit).
-// Experimenter: boundaries, norming studies (and their sessions), run orders, stimulus packs. Reviewer: reads everything, comments,
+// Owner: everything. Designer: seed shapes, spaces (also from a study's equalisation), boundaries, editions (freeze, submit).
+// Experimenter: boundaries, new spaces from a study's perceptual equalisation, norming studies (and their sessions), run orders, stimulus packs. Reviewer: reads everything, comments,
 // approves or returns editions. Display profiles serve packs and studies, so the three making roles edit them.
 const WRITES: Record<Role, PolicyAction[]> = {
   owner: [...POLICY_ACTIONS],
-  designer: ['seed:write', 'space:write', 'boundary:write', 'edition:freeze', 'edition:submit', 'edition:comment', 'profile:write'],
-  experimenter: ['boundary:write', 'study:write', 'session:manage', 'runorder:write', 'pack:create', 'edition:comment', 'profile:write'],
+  designer: ['seed:write', 'space:write', 'space:derive', 'boundary:write', 'edition:freeze', 'edition:submit', 'edition:comment', 'profile:write'],
+  experimenter: ['boundary:write', 'space:derive', 'study:write', 'session:manage', 'runorder:write', 'pack:create', 'edition:comment', 'profile:write'],
   reviewer: ['edition:comment', 'edition:decide'],
 };
 const isRead = (a: PolicyAction) => a.endsWith(':read');

@@ -63,6 +63,7 @@ function toShapeSpace(row: ShapeSpaceListRow): ShapeSpace {
     layout: settings.layout,
     normalization: settings.normalization,
     equalization: row.equalization === null ? null : EqualizationSchema.parse(row.equalization),
+    equalizationSource: settings.radiusMap ? 'study' : row.equalization === null ? null : 'contour',
     anisotropy: row.anisotropy,
     stimulusCount: row.stimulus_count,
     version: row.version,
@@ -86,18 +87,23 @@ async function prepareWrite(db: DbHandle, actor: LabActor, input: { name: string
   const designed = toDefinition(seed, input, null);
   const count = assertBuildable(designed);
   const designedIndex = anisotropyIndex(designed);
-  let equalization: Equalization | null = null;
+  if (input.equalize && input.radiusMap) {
+    throw validationError('space', 'This space keeps the radius re-mapping it was made with (from a norming study); it cannot also be equalised by contour distance.', { equalize: ['Not with a given radius re-mapping'] });
+  }
+  let equalization: Equalization | null = input.radiusMap ?? null;
   let equalizedIndex: number | null = null;
-  if (input.equalize) {
-    equalization = equalizeSpace(designed);
+  if (input.equalize) equalization = equalizeSpace(designed);
+  if (equalization) {
     const equalized = toDefinition(seed, input, equalization);
     assertBuildable(equalized);
     equalizedIndex = anisotropyIndex(equalized);
   }
+  // A space without a given re-mapping stores exactly the settings it always did.
+  const radiusMap = input.radiusMap ? { radiusMap: input.radiusMap } : {};
   return {
     name: input.name,
     seedShapeId: input.seedShapeId,
-    settings: { axes: input.axes, extent: input.extent, layout: input.layout, normalization: input.normalization, equalize: input.equalize } satisfies SpaceSettings,
+    settings: { axes: input.axes, extent: input.extent, layout: input.layout, normalization: input.normalization, equalize: input.equalize, ...radiusMap } satisfies SpaceSettings,
     equalization,
     anisotropy: { designed: finiteOrNull(designedIndex), equalized: finiteOrNull(equalizedIndex) },
     stimulusCount: count,
@@ -120,19 +126,29 @@ export async function getShapeSpace(db: Db, actor: LabActor, id: string): Promis
   return toShapeSpace(await getShapeSpaceRow(db, actor.labId, id));
 }
 
+/**
+ * Validates and inserts a space inside the caller's transaction, with its audit event; the caller has authorised
+ * the action (`space:write`, or `space:derive` for a space made from a study). Returns the new id.
+ */
+export async function insertShapeSpaceIn(trx: DbHandle, actor: LabActor, input: { name: string; seedShapeId: string } & SpaceSettings, details: Record<string, unknown> = {}): Promise<string> {
+  const write = await prepareWrite(trx, actor, input);
+  const row = await insertShapeSpace(trx, actor.labId, actor.userId, write);
+  await insertAuditEvent(trx, { labId: actor.labId, actorUserId: actor.userId, action: 'space.create', subjectType: 'space', subjectId: row.id, details: { name: input.name, stimuli: write.stimulusCount, ...details } });
+  return row.id;
+}
+
+/** Maps a unique-name violation to the field error a form shows. */
+export function nameTakenOr(error: unknown): unknown {
+  return isUniqueViolation(error) ? NAME_TAKEN : error;
+}
+
 export async function createShapeSpace(db: Db, actor: LabActor, input: { name: string; seedShapeId: string } & SpaceSettings): Promise<ShapeSpace> {
   authorize(actor, 'space:write');
   try {
-    const id = await db.transaction().execute(async (trx) => {
-      const write = await prepareWrite(trx, actor, input);
-      const row = await insertShapeSpace(trx, actor.labId, actor.userId, write);
-      await insertAuditEvent(trx, { labId: actor.labId, actorUserId: actor.userId, action: 'space.create', subjectType: 'space', subjectId: row.id, details: { name: input.name, stimuli: write.stimulusCount } });
-      return row.id;
-    });
+    const id = await db.transaction().execute((trx) => insertShapeSpaceIn(trx, actor, input));
     return getShapeSpace(db, actor, id);
   } catch (error) {
-    if (isUniqueViolation(error)) throw NAME_TAKEN;
-    throw error;
+    throw nameTakenOr(error);
   }
 }
 
@@ -155,8 +171,7 @@ export async function updateShapeSpace(
       await insertAuditEvent(trx, { labId: actor.labId, actorUserId: actor.userId, action: 'space.update', subjectType: 'space', subjectId: id, details: { version: row.version } });
     });
   } catch (error) {
-    if (isUniqueViolation(error)) throw NAME_TAKEN;
-    throw error;
+    throw nameTakenOr(error);
   }
   return getShapeSpace(db, actor, id);
 }

@@ -1,0 +1,3 @@
+import { createEqualizedSpaceRoute } from '@/lib/server/api/study-similarity';
+import { toHandler } from '@/lib/server/http';
+export const POST = toHandler(createEqualizedSpaceRoute);

@@ -1,0 +1,3 @@
+import { studySimilarityRdmRoute } from '@/lib/server/api/study-similarity';
+import { toHandler } from '@/lib/server/http';
+export const GET = toHandler(studySimilarityRdmRoute);

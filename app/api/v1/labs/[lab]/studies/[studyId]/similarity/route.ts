@@ -1,0 +1,3 @@
+import { getStudySimilarityRoute } from '@/lib/server/api/study-similarity';
+import { toHandler } from '@/lib/server/http';
+export const GET = toHandler(getStudySimilarityRoute);
