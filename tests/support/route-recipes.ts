@@ -8,6 +8,7 @@ import { insertMembership } from '@/db/repositories/memberships';
 import { insertUser } from '@/db/repositories/users';
 import { getDb } from '@/lib/server/db';
 import { registeredRoutes, type AnyRouteSpec } from '@/lib/server/http';
+import type { PolicyAction } from '@/lib/server/policy';
 import { startBoss } from '@/lib/server/jobs/boss';
 import { startPackWorker } from '@/lib/server/jobs/pack-worker';
 import { renderPng } from '@/lib/render/render-png';
@@ -29,6 +30,8 @@ export interface RecipeCall {
   body?: unknown;
   text?: { type: string; content: string };
   status: number;
+  /** The policy action the service asks for with these inputs, when narrower than the route's (the matrix reads it). */
+  action?: PolicyAction;
 }
 
 export interface Recipe {
@@ -148,7 +151,8 @@ export async function prepareRouteRecipes(lab: TestLab): Promise<RecipeBook> {
     ['revokeLabInvitation', () => ({ as: 'owner', params: { ...L(), invitationId: ids.invitation! }, status: 204 })],
     ['joinLab', () => ({ as: 'reviewer', params: L(), body: { token: 'y'.repeat(40) }, status: 400 })],
     ['changeLabMemberRole', () => ({ as: 'owner', params: { ...L(), userId: ids.extra! }, body: { role: 'experimenter' }, status: 200 })],
-    ['removeLabMember', () => ({ as: 'owner', params: { ...L(), userId: ids.extra! }, status: 204 })],
+    // Any member may leave (the route needs lab:read); removing someone else needs members:manage.
+    ['removeLabMember', () => ({ as: 'owner', params: { ...L(), userId: ids.extra! }, action: 'members:manage', status: 204 })],
     ['listAuditEvents', () => ({ as: 'token', params: L(), status: 200 })],
     ['createSeedShape', () => ({ as: 'designer', params: L(), body: { name: `Seed ${suffix}`, descriptor: TEST_SEED }, status: 201 }), (b) => {
       ids.seed = (b as { id: string }).id;
