@@ -112,11 +112,25 @@ export function fieldErrorsOf(error: z.ZodError, prefix?: string): FieldErrors {
   return fields;
 }
 
+/** The dot-joined path of the first string holding a NUL character, which PostgreSQL cannot store in text or jsonb. */
+function findNulCharacter(value: unknown, path: string[] = []): string | undefined {
+  if (typeof value === 'string') return value.includes('\u0000') ? path.join('.') || '_' : undefined;
+  if (value === null || typeof value !== 'object') return undefined;
+  for (const [key, item] of Object.entries(value)) {
+    if (key.includes('\u0000')) return [...path, key].join('.');
+    const found = findNulCharacter(item, [...path, key]);
+    if (found !== undefined) return found;
+  }
+  return undefined;
+}
+
 function parseWith<S extends z.ZodType>(schema: S, value: unknown, part: string): z.infer<S> {
   const result = schema.safeParse(value);
   if (!result.success) {
     throw validationError('request', `The ${part} is not valid.`, fieldErrorsOf(result.error));
   }
+  const nul = findNulCharacter(result.data);
+  if (nul !== undefined) throw validationError('request', `The ${part} is not valid.`, { [nul]: ['Contains a NUL character'] });
   return result.data;
 }
 
@@ -302,6 +316,8 @@ export function defineAction<I extends z.ZodType, O>(
       if (!parsed.success) {
         throw validationError('action', 'Please correct the highlighted fields.', fieldErrorsOf(parsed.error));
       }
+      const nul = findNulCharacter(parsed.data);
+      if (nul !== undefined) throw validationError('action', 'Please correct the highlighted fields.', { [nul]: ['Contains a NUL character'] });
       const principal = await resolvePrincipal();
       if (spec.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
       return { ok: true, data: await spec.handler(parsed.data, principal) };

@@ -13,7 +13,7 @@ import { registeredActions, registeredRoutes, type AnyRouteSpec } from '@/lib/se
 import { can, canWithToken, ROLES, TOKEN_SCOPE_ROLES, type PolicyAction } from '@/lib/server/policy';
 import { newInvite } from '@/lib/server/study-invite';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
-import { authOf, callRecipe, prepareRouteRecipes, routesById, startRecipeWorker, type RecipeBook, type RecipeCall, type RecipeCaller } from '../support/route-recipes';
+import { authOf, callRecipe, prepareRouteRecipes, routesById, type RecipeBook, type RecipeCall, type RecipeCaller } from '../support/route-recipes';
 
 type Answer = Awaited<ReturnType<typeof callRoute>>;
 type Auth = { cookie?: string; bearer?: string };
@@ -62,14 +62,12 @@ describe('the authorisation matrix', () => {
   let lab: TestLab;
   let other: TestLab;
   let book: RecipeBook;
-  let stopWorker: (() => Promise<void>) | null = null;
   const tokens = {} as Record<Scope, string>;
   let otherLabToken = '';
 
   beforeAll(async () => {
     lab = await createLabWithEveryRole(getDb());
     other = await createLabWithEveryRole(getDb());
-    stopWorker = await startRecipeWorker();
     book = await prepareRouteRecipes(lab);
     for (const scope of Object.keys(TOKEN_SCOPE_ROLES) as Scope[]) {
       const r = await callRoute(api.createApiTokenRoute, { params: { lab: lab.slug }, body: { name: `matrix ${scope}`, scope, expiresInDays: 1 }, cookie: lab.members.owner.cookie });
@@ -79,7 +77,7 @@ describe('the authorisation matrix', () => {
     otherLabToken = (r.body as { token: string }).token;
   });
   afterAll(async () => {
-    await stopWorker?.();
+    await book?.close();
     await getDb().destroy();
   });
 

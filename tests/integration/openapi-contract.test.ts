@@ -12,7 +12,7 @@ import { registeredRoutes } from '@/lib/server/http';
 import { buildOpenApiDocument } from '@/lib/server/openapi';
 import '@/lib/server/api';
 import { createLabWithEveryRole, type TestLab } from '../support/actors';
-import { callRecipe, prepareRouteRecipes, routesById, startRecipeWorker } from '../support/route-recipes';
+import { callRecipe, prepareRouteRecipes, routesById, type RecipeBook } from '../support/route-recipes';
 
 type Doc = { paths: Record<string, Record<string, { operationId: string; responses: Record<string, { content?: Record<string, { schema: object }> } | { $ref: string }> }>>; components: { responses: Record<string, { content: Record<string, { schema: object }> }> } };
 
@@ -29,15 +29,14 @@ function mountedRoutes(): string[] {
 
 describe('the OpenAPI document and the API agree', () => {
   let lab: TestLab;
-  let stopWorker: (() => Promise<void>) | null = null;
+  let book: RecipeBook | undefined;
   const doc = () => buildOpenApiDocument(registeredRoutes(), getEnv().APP_URL) as unknown as Doc;
 
   beforeAll(async () => {
     lab = await createLabWithEveryRole(getDb());
-    stopWorker = await startRecipeWorker();
   });
   afterAll(async () => {
-    await stopWorker?.();
+    await book?.close();
     await getDb().destroy();
   });
 
@@ -63,7 +62,7 @@ describe('the OpenAPI document and the API agree', () => {
   });
 
   it('every operation, called, answers as documented', async () => {
-    const book = await prepareRouteRecipes(lab);
+    book = await prepareRouteRecipes(lab);
     const document = doc();
     const byId = new Map<string, { path: string; method: string; responses: Doc['paths'][string][string]['responses'] }>();
     for (const [path, ops] of Object.entries(document.paths)) for (const [method, op] of Object.entries(ops)) byId.set(op.operationId, { path, method, responses: op.responses });

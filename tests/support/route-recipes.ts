@@ -1,7 +1,6 @@
 // The working inputs of every API operation, in an order where each call may use what an earlier one made. The
 // OpenAPI contract test calls each once as documented; the authorisation matrix and the fuzzer reuse the same
 // inputs, so a route added here is covered by all three (and a route missing here fails all three).
-import type PgBoss from 'pg-boss';
 import { expect } from 'vitest';
 import * as api from '@/lib/server/api';
 import { insertMembership } from '@/db/repositories/memberships';
@@ -51,6 +50,8 @@ export interface RecipeBook {
   /** Ids made along the way, by name. */
   ids: Record<string, string>;
   recipes: Recipe[];
+  /** Stops the pack worker the recipes started (call it when done). */
+  close: () => Promise<void>;
 }
 
 const SPACE = testSpaceSettings({ kind: 'rings', rings: 1, spokes: 4 });
@@ -70,9 +71,9 @@ const CSV_CIRCLE = Array.from({ length: 64 }, (_, i) => `${Math.cos((2 * Math.PI
 const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-/** Starts pg-boss and a pack worker, as the pack recipes need; returns the stop function. */
-export async function startRecipeWorker(): Promise<() => Promise<void>> {
-  const boss: PgBoss = await startBoss({ supervise: true, maintenanceIntervalSeconds: 1 });
+/** Starts pg-boss and a pack worker; returns the stop function. */
+async function startRecipeWorker(): Promise<() => Promise<void>> {
+  const boss = await startBoss({ supervise: true, maintenanceIntervalSeconds: 1 });
   const stopWorker = await startPackWorker({ db: getDb(), boss, pool: { render: renderPng }, pollingIntervalSeconds: 0.5 });
   return async () => {
     await stopWorker();
@@ -110,7 +111,10 @@ export function routesById(): Map<string, AnyRouteSpec> {
  */
 export async function prepareRouteRecipes(lab: TestLab): Promise<RecipeBook> {
   const ids: Record<string, string> = {};
-  const book: RecipeBook = { lab, token: '', ids, recipes: [] };
+  // The pack worker starts only once the first pack was cancelled while still queued, so that cancel never races
+  // a worker that has already picked the job up.
+  let stopWorker: (() => Promise<void>) | undefined;
+  const book: RecipeBook = { lab, token: '', ids, recipes: [], close: async () => stopWorker?.() };
   const L = () => ({ lab: lab.slug });
   const space = () => ({ lab: lab.slug, spaceId: ids.space! });
   const edition = (n: number) => ({ ...space(), number: String(n) });
@@ -197,6 +201,7 @@ export async function prepareRouteRecipes(lab: TestLab): Promise<RecipeBook> {
     ['listPacks', () => ({ as: 'token', params: L(), status: 200 })],
     ['cancelPack', () => ({ as: 'token', params: pack(), status: 200 }), async () => {
       await waitForPack((s) => s === 'cancelled');
+      stopWorker = await startRecipeWorker();
     }],
     ['retryPack', () => ({ as: 'token', params: pack(), status: 200 }), async () => {
       expect(await waitForPack((s) => s === 'succeeded' || s === 'failed')).toBe('succeeded');
