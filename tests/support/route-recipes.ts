@@ -14,6 +14,7 @@ import { renderPng } from '@/lib/render/render-png';
 import { DEFAULT_RENDER_OPTIONS } from '@/lib/schemas/render';
 import { DEFAULT_RUN_ORDER_DEFINITION } from '@/lib/schemas/run-order';
 import { callRoute, sessionCookie, TEST_PASSWORD, type TestLab } from './actors';
+import { formulaCellsIn } from './csv-safety';
 import { TEST_SEED, testSpaceSettings } from './editions';
 import { uniqueSuffix } from './db';
 
@@ -236,7 +237,9 @@ export async function prepareRouteRecipes(lab: TestLab): Promise<RecipeBook> {
       ids.session = (b as { items: { id: string }[] }).items[0]!.id;
     }],
     ['listStudyTrials', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
-    ['downloadStudyTrialsCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+    ['downloadStudyTrialsCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 }), (b) => {
+      expect(formulaCellsIn(String(b)), 'the trials CSV neutralises formula cells').toEqual([]);
+    }],
     ['setStudySessionExclusion', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study!, sessionId: ids.session! }, body: { isExcluded: true, reason: 'Test run' }, status: 200 })],
     ['withdrawParticipantSession', () => ({ as: 'anonymous', body: { sessionCode: ids.sessionCode! }, status: 200 })],
     ['deleteStudySession', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study!, sessionId: ids.session! }, status: 204 })],
