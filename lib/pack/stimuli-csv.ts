@@ -1,4 +1,5 @@
 import { stringify } from 'csv-stringify/sync';
+import { neutralizeCsvCell } from '../csv/neutralize-csv-cell';
 import { categoryLabel } from './category-label';
 import type { ManifestStimulus } from './types';
 
@@ -57,5 +58,5 @@ export function stimuliCsv(stimuli: readonly ManifestStimulus[], boundaryKeys: r
     ...s.boundaries.flatMap((p) => [categoryLabel(p), String(p.signedDistance), String(p.fraction)]),
     JSON.stringify(s.descriptor),
   ]);
-  return stringify([header, ...rows], { record_delimiter: 'windows' });
+  return stringify([header, ...rows].map((row) => row.map(neutralizeCsvCell)), { record_delimiter: 'windows' });
 }

@@ -1,4 +1,5 @@
 import { stringify } from 'csv-stringify/sync';
+import { neutralizeCsvCell } from '../csv/neutralize-csv-cell';
 import { categoryLabel } from './category-label';
 import type { ManifestStimulus } from './types';
 
@@ -13,5 +14,5 @@ export const TRIAL_LIST_COLUMNS = ['stimulus_id', 'kind', 'png_file', 'svg_file'
 export function trialListCsv(stimuli: readonly ManifestStimulus[], boundaryKeys: readonly string[]): string {
   const header = [...TRIAL_LIST_COLUMNS, ...boundaryKeys.map((k) => `category_${k}`)];
   const rows = stimuli.map((s) => [s.id, s.kind, s.files.png.path, s.files.svg.path, ...s.boundaries.map(categoryLabel)]);
-  return stringify([header, ...rows], { record_delimiter: 'windows' });
+  return stringify([header, ...rows].map((row) => row.map(neutralizeCsvCell)), { record_delimiter: 'windows' });
 }

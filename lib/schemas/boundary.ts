@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { VersionSchema } from './common';
 import { BOUNDARY_KEY_PATTERN, MAX_BOUNDARY_KEY_LENGTH } from '@/lib/boundary/boundary-limits';
 
 /** At most this many boundaries per space. */
@@ -27,5 +28,5 @@ export const PutBoundariesSchema = z.object({
     .max(MAX_BOUNDARIES, `At most ${MAX_BOUNDARIES} boundaries per space`)
     .refine((bs) => new Set(bs.map((b) => b.key)).size === bs.length, 'Two boundaries have the same key'),
   /** The boundaries version the edit started from. */
-  version: z.number().int().min(1),
+  version: VersionSchema,
 });

@@ -19,6 +19,11 @@ export interface Page<T> {
 }
 
 export const IdSchema = z.uuid();
+
+/** PostgreSQL's integer ceiling: a larger number sent for an integer column is a field error, not a database error. */
+export const PG_INT_MAX = 2_147_483_647;
+/** A row's version, sent back with a change (optimistic locking). */
+export const VersionSchema = z.number().int().min(1).max(PG_INT_MAX);
 export const SlugSchema = z
   .string()
   .min(2)

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { VersionSchema } from './common';
 import { LabPathSchema } from './account';
 
 const positive = (label: string) => z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be finite`).refine((v) => v > 0, `${label} must be above 0`);
@@ -22,7 +23,7 @@ const PITCH_MESSAGE = { message: 'Give either the physical screen width or the p
 export const DisplayProfileInputSchema = ProfileFields.refine(onePitch, PITCH_MESSAGE);
 export type DisplayProfileInput = z.input<typeof DisplayProfileInputSchema>;
 
-export const UpdateDisplayProfileSchema = ProfileFields.partial().extend({ version: z.number().int().min(1) });
+export const UpdateDisplayProfileSchema = ProfileFields.partial().extend({ version: VersionSchema });
 
 export const DisplayProfilePathSchema = LabPathSchema.extend({ profileId: z.uuid() });
 

@@ -1,4 +1,4 @@
-import { PageQuerySchema } from './common';
+import { PageQuerySchema, VersionSchema } from './common';
 import { z } from 'zod';
 import { DescriptorSchema } from './descriptor';
 import { EqualizationSchema, SpaceAxisSchema, SpaceLayoutSchema, SpaceNormalizationSchema, SpacePathSchema } from './space';
@@ -75,8 +75,8 @@ export const CommentPathSchema = EditionPathSchema.extend({ commentId: z.uuid() 
 export const FreezeEditionSchema = z.object({
   changeNote: z.string().trim().max(2000, 'Keep the note under 2,000 characters').default(''),
   /** The space version the designer looked at; refused if someone saved since. */
-  spaceVersion: z.number().int().min(1).optional(),
-  boundariesVersion: z.number().int().min(1).optional(),
+  spaceVersion: VersionSchema.optional(),
+  boundariesVersion: VersionSchema.optional(),
 });
 
 export const UpdateEditionSchema = z.object({ changeNote: z.string().trim().max(2000) });
@@ -106,8 +106,8 @@ export const EditionCommentSchema = z.object({
 export type EditionComment = z.infer<typeof EditionCommentSchema>;
 
 export const DiffQuerySchema = z.object({
-  from: z.coerce.number().int().min(1),
-  to: z.coerce.number().int().min(1),
+  from: z.coerce.number().int().min(1).max(1_000_000),
+  to: z.coerce.number().int().min(1).max(1_000_000),
 });
 
 const DiffStimulus = SnapshotStimulusSchema;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { VersionSchema } from './common';
 import { LabPathSchema } from './account';
 import { EditionStateSchema } from './edition';
 
@@ -101,7 +102,7 @@ export const CreateRunOrderSchema = z.object({
   definition: RunOrderDefinitionSchema,
 });
 export type CreateRunOrderInput = z.infer<typeof CreateRunOrderSchema>;
-export const UpdateRunOrderSchema = CreateRunOrderSchema.extend({ version: z.number().int().min(1) });
+export const UpdateRunOrderSchema = CreateRunOrderSchema.extend({ version: VersionSchema });
 
 export const RunOrderPathSchema = LabPathSchema.extend({ runOrderId: z.uuid() });
 export const RunOrderStateSchema = z.enum(['ready', 'queued', 'running', 'failed']);

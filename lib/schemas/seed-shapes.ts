@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { VersionSchema } from './common';
 import { DescriptorSchema, FamilySchema } from './descriptor';
 import { LabPathSchema } from './account';
 
@@ -59,7 +60,7 @@ export const UpdateSeedShapeSchema = z.object({
   name: SeedShapeNameSchema.optional(),
   descriptor: DescriptorSchema.optional(),
   /** The version the edit started from; a newer stored version is a conflict, not a silent overwrite. */
-  version: z.number().int().min(1),
+  version: VersionSchema,
 });
 
 export const SeedShapePathSchema = LabPathSchema.extend({ seedShapeId: z.uuid() });

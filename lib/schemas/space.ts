@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { VersionSchema } from './common';
 import { LabPathSchema } from './account';
 import { BoundarySchema } from './boundary';
 import { DescriptorSchema, FamilySchema, MAX_HARMONIC } from './descriptor';
@@ -73,7 +74,7 @@ export const CreateSpaceSchema = SpaceSettingsSchema.extend({
 });
 export type CreateSpaceInput = z.input<typeof CreateSpaceSchema>;
 
-export const UpdateSpaceSchema = CreateSpaceSchema.partial().extend({ version: z.number().int().min(1) });
+export const UpdateSpaceSchema = CreateSpaceSchema.partial().extend({ version: VersionSchema });
 
 export const SpacePathSchema = LabPathSchema.extend({ spaceId: z.uuid() });
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { VersionSchema } from './common';
 import { LabPathSchema } from './account';
 import { EditionStateSchema } from './edition';
 
@@ -111,7 +112,7 @@ export const UpdateStudySchema = z.object({
   /** Only while the study is a Draft. */
   editionId: z.uuid('Choose an edition').optional(),
   design: StudyDesignSchema.optional(),
-  version: z.number().int().min(1),
+  version: VersionSchema,
 });
 export type UpdateStudyInput = z.input<typeof UpdateStudySchema>;
 

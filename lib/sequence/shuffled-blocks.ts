@@ -12,7 +12,7 @@ export interface ShuffledBlocksOptions {
 
 /**
  * `blocks` consecutive blocks, each a uniformly random permutation of the conditions 0…n−1 (n ≥ 1, blocks ≥ 1,
- * n × blocks ≤ 1,000,000), with no immediate repeat: a block never starts with the condition that ended the block
+ * n × blocks ≤ 100,000), with no immediate repeat: a block never starts with the condition that ended the block
  * before. Each block is a Fisher–Yates shuffle, redrawn while it would repeat (rejection sampling, so every
  * admissible block is equally likely; n/(n − 1) draws on average). Not carry-over balanced. n = 1 with more than
  * one block is refused (`no-immediate-repeat-impossible`).

@@ -2,6 +2,7 @@ import 'server-only';
 import { z } from 'zod';
 import {
   AppError,
+  forbidden,
   PROBLEM_CONTENT_TYPE,
   toProblemDetails,
   unauthenticated,
@@ -12,6 +13,7 @@ import {
 import { getRequestPrincipal, type Principal } from './auth/principal';
 import { logEvent } from './log';
 import { getDb } from './db';
+import { getEnv } from './env';
 import type { PolicyAction } from './policy';
 import { authorize, resolveLabActor, type LabActor } from './services/access';
 
@@ -112,11 +114,25 @@ export function fieldErrorsOf(error: z.ZodError, prefix?: string): FieldErrors {
   return fields;
 }
 
+/** The dot-joined path of the first string holding a NUL character, which PostgreSQL cannot store in text or jsonb. */
+function findNulCharacter(value: unknown, path: string[] = []): string | undefined {
+  if (typeof value === 'string') return value.includes('\u0000') ? path.join('.') || '_' : undefined;
+  if (value === null || typeof value !== 'object') return undefined;
+  for (const [key, item] of Object.entries(value)) {
+    if (key.includes('\u0000')) return [...path, key].join('.');
+    const found = findNulCharacter(item, [...path, key]);
+    if (found !== undefined) return found;
+  }
+  return undefined;
+}
+
 function parseWith<S extends z.ZodType>(schema: S, value: unknown, part: string): z.infer<S> {
   const result = schema.safeParse(value);
   if (!result.success) {
     throw validationError('request', `The ${part} is not valid.`, fieldErrorsOf(result.error));
   }
+  const nul = findNulCharacter(result.data);
+  if (nul !== undefined) throw validationError('request', `The ${part} is not valid.`, { [nul]: ['Contains a NUL character'] });
   return result.data;
 }
 
@@ -233,6 +249,7 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
       // (or 404 for another lab), never a hint about what a valid body looks like.
       const principal = await getRequestPrincipal(request);
       if (route.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
+      if (principal.kind === 'user') assertSameOrigin(request);
       const actor = await actorFor(route.access, principal, params);
 
       const url = new URL(request.url);
@@ -255,6 +272,28 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
       return problemResponse(error, instance);
     }
   };
+}
+
+const UNSAFE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
+
+/**
+ * A change made with the session cookie must come from this site (CSRF): browsers send Origin on every cross-site
+ * POST, PUT, PATCH and DELETE, and one naming another site (or `null`, a sandboxed frame) is refused. A request
+ * without Origin is no browser's cross-site request; a bearer token is no ambient credential, so it is not asked.
+ */
+function assertSameOrigin(request: Request): void {
+  if (!UNSAFE_METHODS.has(request.method)) return;
+  const origin = request.headers.get('origin');
+  if (origin === null) return;
+  const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host') ?? new URL(request.url).host;
+  let originHost: string | undefined;
+  try {
+    originHost = new URL(origin).host;
+  } catch {
+    originHost = undefined;
+  }
+  if (originHost !== undefined && (originHost === host || origin === new URL(getEnv().APP_URL).origin)) return;
+  throw forbidden('origin', 'This request came from another site, so it was refused. Make the change in Epicycle itself.');
 }
 
 async function actorFor(access: Access, principal: Principal, params: Record<string, unknown>): Promise<LabActor | undefined> {
@@ -302,6 +341,8 @@ export function defineAction<I extends z.ZodType, O>(
       if (!parsed.success) {
         throw validationError('action', 'Please correct the highlighted fields.', fieldErrorsOf(parsed.error));
       }
+      const nul = findNulCharacter(parsed.data);
+      if (nul !== undefined) throw validationError('action', 'Please correct the highlighted fields.', { [nul]: ['Contains a NUL character'] });
       const principal = await resolvePrincipal();
       if (spec.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
       return { ok: true, data: await spec.handler(parsed.data, principal) };

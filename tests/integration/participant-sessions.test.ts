@@ -3,7 +3,7 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as api from '@/lib/server/api';
 import { getDb } from '@/lib/server/db';
-import { neutralizeCell } from '@/lib/server/services/study-sessions';
+import { neutralizeCsvCell as neutralizeCell } from '@/lib/csv';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 import { makeEdition } from '../support/editions';
 

@@ -99,14 +99,15 @@ export async function requestPasswordReset(db: Db, email: string): Promise<void>
 
 /** Spends a reset token (once, before it expires), sets the password and signs out every other session. */
 export async function resetPassword(db: Db, token: string, password: string): Promise<void> {
+  const refuse = () => validationError('password-reset', 'This reset link has expired or was already used. Ask for a new one.', { token: ['Expired or already used'] });
+  const isUsable = (row: Awaited<ReturnType<typeof lockPasswordResetToken>>) => row !== undefined && !row.used_at && row.expires_at.getTime() >= Date.now();
+  // A made-up link is refused before the costly hash, so anyone cannot make the server hash at will; the check is
+  // repeated under the row lock below.
+  if (!isUsable(await lockPasswordResetToken(db, hashToken(token)))) throw refuse();
   const passwordHash = await hashPassword(password);
   await db.transaction().execute(async (trx) => {
     const row = await lockPasswordResetToken(trx, hashToken(token));
-    if (!row || row.used_at || row.expires_at.getTime() < Date.now()) {
-      throw validationError('password-reset', 'This reset link has expired or was already used. Ask for a new one.', {
-        token: ['Expired or already used'],
-      });
-    }
+    if (!row || !isUsable(row)) throw refuse();
     await markPasswordResetTokenUsed(trx, row.id);
     await expireOpenPasswordResetTokens(trx, row.user_id);
     await updateUserPassword(trx, row.user_id, passwordHash);

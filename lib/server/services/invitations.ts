@@ -172,6 +172,8 @@ export async function acceptInvitation(db: Db, userId: string, token: string, la
 
 /** A new user accepts: the account is created with the invited address, then joins the lab. */
 export async function acceptInvitationAsNewUser(db: Db, token: string, name: string, password: string): Promise<{ userId: string; email: string; labSlug: string }> {
+  // A made-up link is refused before the costly hash (and again under the row lock below).
+  refuseUnusable(await lockInvitationByTokenHash(db, hashToken(token)));
   const passwordHash = await hashPassword(password);
   return db.transaction().execute(async (trx) => {
     const row = await lockInvitationByTokenHash(trx, hashToken(token));

@@ -88,7 +88,14 @@ export function extractSvgOutlines(text: string): { outline: Contour; notes: str
       file: ['Transforms are not supported'],
     });
   }
-  const doc = new XMLParser({ ignoreAttributes: false, preserveOrder: true, processEntities: false }).parse(text) as unknown[];
+  let doc: unknown[];
+  try {
+    doc = new XMLParser({ ignoreAttributes: false, preserveOrder: true, processEntities: false }).parse(text) as unknown[];
+  } catch (error) {
+    // The parser refuses some documents the validator let through, deep nesting among them (found by the hostile corpus).
+    const tooDeep = error instanceof Error && /nested/i.test(error.message);
+    throw validationError('outline-upload', tooDeep ? 'The SVG nests elements too deeply.' : 'The SVG could not be read as XML.', { file: [tooDeep ? 'Nested too deeply' : 'Malformed SVG'] });
+  }
   const root = doc.find((n) => n && typeof n === 'object' && 'svg' in (n as object));
   if (!root) throw validationError('outline-upload', 'The file is XML but not an SVG (no <svg> root).', { file: ['Not an SVG'] });
   const candidates: Candidate[] = [];

@@ -1,5 +1,6 @@
 import 'server-only';
 import { stringify } from 'csv-stringify/sync';
+import { neutralizeCsvCell } from '@/lib/csv';
 import { z } from 'zod';
 import { conflict, notFound } from '@/lib/errors';
 import type { Db } from '@/db/client';
@@ -115,24 +116,9 @@ export async function listStudyTrials(db: Db, actor: LabActor, studyId: string):
   });
 }
 
-/** Characters that make a spreadsheet read a cell as a formula (OWASP's CSV-injection list). */
-const FORMULA_START = /^[=+\-@\t\r]/;
-const NUMBER = /^-?\d+(\.\d+)?(e[+-]?\d+)?$/i;
-
-/**
- * A text cell made safe for spreadsheets: one that starts with `=`, `+`, `-`, `@` (or a tab or CR) gets a leading
- * apostrophe. Numbers are left as they are: a negative position such as `-0.4` is data, not a formula.
- */
-export function neutralizeCell(value: unknown): string {
-  if (value === null || value === undefined) return '';
-  const text = String(value);
-  if (typeof value === 'number' || NUMBER.test(text)) return text;
-  return FORMULA_START.test(text) ? `'${text}` : text;
-}
-
 /** The raw trials as CSV, one row per stored trial, columns in the JSON export's order. */
 export async function studyTrialsCsv(db: Db, actor: LabActor, studyId: string): Promise<string> {
   const records = await listStudyTrials(db, actor, studyId);
   const columns = Object.keys(TrialRecordSchema.shape) as (keyof TrialRecordValue)[];
-  return stringify([columns, ...records.map((r) => columns.map((c) => neutralizeCell(r[c])))]);
+  return stringify([columns, ...records.map((r) => columns.map((c) => neutralizeCsvCell(r[c])))]);
 }

@@ -34,7 +34,7 @@ import {
 import { buildTrialPlan, type StudyDesign, type Trial } from '@/lib/study';
 import { authorize, type LabActor } from './access';
 import { insertShapeSpaceIn, nameTakenOr } from './shape-spaces';
-import { neutralizeCell } from './study-sessions';
+import { neutralizeCsvCell } from '@/lib/csv';
 
 /** The 1–7 rating scale's top: 7 means "most similar" (the scale's high end, "Very similar" by default). */
 const SCALE_MAX = 7;
@@ -317,7 +317,7 @@ export async function studySimilarityCsv(db: Db, actor: LabActor, studyId: strin
       }
     }
   }
-  return stringify([header, ...lines.map((l) => l.map(neutralizeCell))]);
+  return stringify([header, ...lines.map((l) => l.map(neutralizeCsvCell))]);
 }
 
 /**

@@ -90,6 +90,13 @@ describe('radius not positive (radial)', () => {
     expectShapeError(() => synthesizeContour(radial([], -1), 64), 'radius-not-positive', { value: -1 });
   });
 
+  it('a base radius whose area under- or overflows double precision is refused (found by the request fuzzer)', () => {
+    expectShapeError(() => validateDescriptor(radial([], 5.8e-207)), 'degenerate-shape', { family: 'radial' });
+    expectShapeError(() => validateDescriptor(radial([], 1e200)), 'degenerate-shape', { family: 'radial' });
+    expect(() => validateDescriptor(radial([], 1e-6))).not.toThrow();
+    expect(() => validateDescriptor(radial([], 1e6))).not.toThrow();
+  });
+
   it('Σ|A_k| ≥ 1 with r > 0 everywhere is accepted (the dense-grid check decides)', () => {
     expect(() => validateDescriptor(radial([{ k: 3, amplitude: 0.6, phase: 0 }, { k: 6, amplitude: 0.45, phase: 0 }]))).not.toThrow();
   });

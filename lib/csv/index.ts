@@ -1,0 +1,1 @@
+export { FORMULA_START, neutralizeCsvCell } from './neutralize-csv-cell';
