@@ -4,7 +4,8 @@
 //   npm run load -- --search          the highest arrival rate that keeps p99 under 100 ms
 //   npm run load -- --kill-web        runs its own web server (on --web-port), kills it mid-load, restarts it, and
 //                                     checks that the outboxes drained with no trial lost
-// Options: --url http://127.0.0.1:3000, --sessions 100, --trials 200, --interval-ms 200, --web-port 3301.
+// Options: --url http://127.0.0.1:3000, --sessions 100, --trials 200, --interval-ms 200, --web-port 3301,
+// --drain-seconds 1200 (how long the outboxes may take to empty before the count is checked).
 // The database is DATABASE_URL, else the local cluster on EPICYCLE_PG_PORT (default 54329).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { parseArgs } from 'node:util';
@@ -26,6 +27,8 @@ const { values: args } = parseArgs({
     'kill-web': { type: 'boolean', default: false },
     'web-port': { type: 'string', default: '3301' },
     'p99-target-ms': { type: 'string', default: '100' },
+    // A slow (or shared) machine queues answers in the outboxes; the count check waits for them this long.
+    'drain-seconds': { type: 'string', default: '1200' },
   },
 });
 
@@ -74,7 +77,7 @@ async function waitForHealth(url: string, timeoutMs: number): Promise<void> {
 
 function startWeb(port: number): ChildProcess {
   const child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], {
-    env: { ...process.env, NODE_ENV: 'production', APP_URL: `http://127.0.0.1:${port}`, NEXTAUTH_URL: `http://127.0.0.1:${port}` },
+    env: { ...process.env, EPICYCLE_ENV: process.env.EPICYCLE_ENV ?? 'local', NODE_ENV: 'production', APP_URL: `http://127.0.0.1:${port}`, NEXTAUTH_URL: `http://127.0.0.1:${port}` },
     stdio: ['ignore', 'ignore', 'inherit'],
   });
   return child;
@@ -87,6 +90,7 @@ try {
   const trials = Number(args.trials);
   const intervalMs = Number(args['interval-ms']);
   const target = Number(args['p99-target-ms']);
+  const drainTimeoutMs = Number(args['drain-seconds']) * 1000;
   const baseUrl = args.url ?? process.env.APP_URL ?? `http://127.0.0.1:${process.env.PORT ?? 3000}`;
   const check = async (report: LoadReport) => {
     const stored = await countSessionTrials(db, report.sessionCodes);
@@ -100,7 +104,7 @@ try {
     const probe = async (rate: number) => {
       const interval = (sessions * 1000) / rate;
       const perSession = Math.max(10, Math.round((10_000 / interval)));
-      const report = await runParticipantLoad({ baseUrl, token, sessions, trialsPerSession: perSession, intervalMs: interval });
+      const report = await runParticipantLoad({ baseUrl, token, sessions, trialsPerSession: perSession, intervalMs: interval, drainTimeoutMs });
       const stored = await countSessionTrials(db, report.sessionCodes);
       log(`rate ${rate}/s: p50 ${report.latencyMs.p50} ms, p99 ${report.latencyMs.p99} ms, throughput ${report.throughputPerSecond}/s, stored ${stored.distinctTrials}/${report.trialsSent}`);
       return { rate, ...strip(report), stored: stored.distinctTrials, meets: report.latencyMs.p99 < target && report.trialsPending === 0 && stored.distinctTrials === report.trialsSent };
@@ -142,6 +146,7 @@ try {
       sessions,
       trialsPerSession: trials,
       intervalMs,
+      drainTimeoutMs,
       onTick: (p) => {
         if (!killed && Date.now() >= killAt) {
           killed = true;
@@ -164,7 +169,7 @@ try {
     if (!result.ok || report.trialsPending > 0) process.exitCode = 1;
   } else {
     await waitForHealth(baseUrl, 10_000);
-    const report = await runParticipantLoad({ baseUrl, token, sessions, trialsPerSession: trials, intervalMs });
+    const report = await runParticipantLoad({ baseUrl, token, sessions, trialsPerSession: trials, intervalMs, drainTimeoutMs });
     const result = await check(report);
     console.log(JSON.stringify({ mode: 'steady', ...strip(report), p99UnderTarget: report.latencyMs.p99 < target, database: result }, null, 2));
     if (!result.ok || report.trialsPending > 0) process.exitCode = 1;
