@@ -57,7 +57,7 @@ describe('participant load (small): every answer is stored exactly once', () => 
       sessions: SESSIONS,
       trialsPerSession: TRIALS,
       intervalMs: 100,
-      drainTimeoutMs: 60_000,
+      drainTimeoutMs: 120_000,
       onTick: () => {
         ticks += 1;
         // From the first second on, one successful answer in twenty never reaches its participant.
@@ -76,7 +76,7 @@ describe('participant load (small): every answer is stored exactly once', () => 
 
     expect(report.sessions).toBe(SESSIONS);
     expect(report.trialsSent).toBe(SESSIONS * TRIALS);
-    expect(report.trialsPending).toBe(0);
+    expect(report.trialsPending, JSON.stringify({ ...report, sessionCodes: undefined })).toBe(0);
     expect(report.trialsRefused).toBe(0);
     expect(report.trialsConfirmed).toBe(SESSIONS * TRIALS);
     // The faults happened: requests failed, and answers stored but not heard of were sent again and absorbed.
@@ -86,5 +86,5 @@ describe('participant load (small): every answer is stored exactly once', () => 
 
     const held = await countSessionTrials(getDb(), report.sessionCodes);
     expect(held).toEqual({ rows: SESSIONS * TRIALS, distinctTrials: SESSIONS * TRIALS, sessionCounters: SESSIONS * TRIALS });
-  }, 90_000);
+  }, 180_000);
 });

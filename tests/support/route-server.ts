@@ -43,8 +43,11 @@ export class RouteServer {
     const server = this.server;
     this.server = null;
     if (!server) return;
+    const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+    // Connections accepted a moment before close() would otherwise keep it waiting for their keep-alive timeout.
+    server.closeAllConnections();
     for (const s of this.sockets) s.destroy();
-    await new Promise<void>((resolve) => server.close(() => resolve()));
+    await closed;
   }
 
   private async serve(req: IncomingMessage, res: ServerResponse): Promise<void> {
