@@ -17,6 +17,13 @@ export function createDb(connectionString: string, max = 10): Kysely<Database> {
   pool.on('error', (error) => {
     process.stderr.write(`[db] idle client error: ${error.message}\n`);
   });
+  // The pool's own listener covers idle clients only. A client in use when the server goes away (a restart)
+  // emits 'error' as well as failing its query; with no listener that event would crash the process.
+  pool.on('connect', (client) => {
+    client.on('error', (error) => {
+      process.stderr.write(`[db] connection lost: ${error.message}\n`);
+    });
+  });
   const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
   pools.set(db, pool);
   return db;

@@ -10,6 +10,9 @@ import { ROOT, bin, ensureDependencies, runOrThrow, runTs, startService } from '
 import demo from '../db/demo-users.json' with { type: 'json' };
 
 const isDev = process.argv.includes('--dev');
+// `--no-build` serves the build already in .next (e.g. a second web server beside the first, or a checkout whose
+// node_modules is a symlink, built by hand with `next build --webpack`).
+const skipBuild = process.argv.includes('--no-build');
 const host = process.env.HOST ?? '127.0.0.1';
 const port = Number(process.env.PORT ?? 3000);
 const pgPort = Number(process.env.EPICYCLE_PG_PORT ?? 54329);
@@ -46,7 +49,7 @@ try {
   env.APP_URL = appUrl;
   env.NEXTAUTH_URL = appUrl;
   if (!process.env.SMTP_URL) {
-    const mail = await startMailCatcher({ smtpPort: 2525, httpPort: 2580 });
+    const mail = await startMailCatcher({ smtpPort: Number(process.env.EPICYCLE_SMTP_PORT ?? 2525), httpPort: Number(process.env.EPICYCLE_MAIL_HTTP_PORT ?? 2580) });
     cleanups.push(() => mail.stop());
     env.SMTP_URL = mail.smtpUrl;
     env.MAIL_CATCHER_URL = mail.httpUrl;
@@ -60,7 +63,7 @@ try {
   await runTs('scripts/db-migrate.ts', env);
   await runTs('scripts/db-seed.ts', env);
 
-  if (!isDev) {
+  if (!isDev && !skipBuild) {
     log('start', 'building the app (next build)…');
     await runOrThrow(bin('next'), ['build'], { env: { ...env, NODE_ENV: 'production' } });
   }

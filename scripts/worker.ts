@@ -10,6 +10,12 @@ import { startPackWorker } from '@/lib/server/jobs/pack-worker';
 import { PackPool } from '@/lib/server/jobs/pack-pool';
 import { startRunOrderWorker } from '@/lib/server/jobs/run-order-worker';
 
+// pg-boss 10 records a job's end without awaiting it; if the database is away at that moment the rejection is
+// unhandled. The job then stays active until it expires and is retried, so it is logged rather than fatal.
+process.on('unhandledRejection', (reason) => {
+  console.error(`[worker] unhandled rejection (the job will be retried after it expires): ${reason instanceof Error ? reason.message : String(reason)}`);
+});
+
 const env = getEnv();
 const db = createDb(env.DATABASE_URL, 4);
 const pool = new PackPool(env.PACK_RENDER_THREADS);

@@ -41,21 +41,30 @@ export async function findSessionOfStudy(db: DbHandle, studyId: string, sessionI
   return (options.lock ? q.forUpdate() : q).executeTakeFirst();
 }
 
-/** Stores a response unless the session already has one with this client id or for this trial; true when stored. */
-export async function insertResponseOnce(db: DbHandle, row: Omit<TrialResponseRow, 'received_at'>): Promise<boolean> {
-  const r = await db.insertInto('trial_responses').values(row).onConflict((oc) => oc.doNothing()).returning('trial_index').executeTakeFirst();
-  return r !== undefined;
-}
-
-/** Adds `added` to the stored count and marks the session seen now; returns the new count. */
-export async function touchSession(db: DbHandle, sessionId: string, added: number): Promise<number> {
-  const row = await db
-    .updateTable('study_sessions')
-    .set((eb) => ({ stored_trials: eb('stored_trials', '+', added), last_seen_at: new Date() }))
-    .where('id', '=', sessionId)
-    .returning('stored_trials')
-    .executeTakeFirstOrThrow();
-  return row.stored_trials;
+/**
+ * Stores one answer and counts it in one statement (one round trip, no explicit transaction): it locks the session
+ * row while the session is still taking answers, inserts unless this client id or trial index is already stored,
+ * and adds what was inserted to the session's counter. `stored` is null when the session is withdrawn, complete or
+ * gone; the caller reads the row again to say which.
+ */
+export async function storeResponse(db: DbHandle, row: Omit<TrialResponseRow, 'received_at'>): Promise<{ stored: number | null; isNew: boolean }> {
+  const r = await sql<{ stored: number | null; added: number }>`
+    WITH open_session AS (
+      SELECT id FROM study_sessions WHERE id = ${row.session_id} AND withdrawn_at IS NULL AND completed_at IS NULL FOR UPDATE
+    ), inserted AS (
+      INSERT INTO trial_responses (session_id, client_trial_id, trial_index, task, is_practice, is_catch, response_key, rating, rt_ms, is_correct, achieved_ms, onset_ms, offset_ms, was_tab_hidden, left_full_screen)
+      SELECT id, ${row.client_trial_id}, ${row.trial_index}, ${row.task}, ${row.is_practice}, ${row.is_catch}, ${row.response_key}, ${row.rating}, ${row.rt_ms}, ${row.is_correct}, ${row.achieved_ms}, ${row.onset_ms}, ${row.offset_ms}, ${row.was_tab_hidden}, ${row.left_full_screen}
+      FROM open_session
+      ON CONFLICT DO NOTHING
+      RETURNING 1
+    ), counted AS (
+      UPDATE study_sessions SET stored_trials = stored_trials + (SELECT count(*) FROM inserted), last_seen_at = now()
+      WHERE id IN (SELECT id FROM open_session)
+      RETURNING stored_trials
+    )
+    SELECT (SELECT stored_trials FROM counted) AS stored, (SELECT count(*) FROM inserted)::int AS added`.execute(db);
+  const out = r.rows[0]!;
+  return { stored: out.stored, isNew: out.added > 0 };
 }
 
 export async function listAnsweredIndices(db: DbHandle, sessionId: string): Promise<number[]> {
@@ -126,4 +135,19 @@ export function listStudyResponses(db: DbHandle, studyId: string): Promise<Respo
     .orderBy('s.participant_index')
     .orderBy('r.trial_index')
     .execute();
+}
+
+/**
+ * What the database holds for these sessions (by code hash): answer rows, distinct (session, trial) pairs, and the
+ * sum of the sessions' own stored counters. The load test expects the three to agree.
+ */
+export async function countTrialsOfSessions(db: DbHandle, codeHashes: readonly string[]): Promise<{ rows: number; distinctTrials: number; sessionCounters: number }> {
+  const r = await sql<{ rows: number; distinct_trials: number; counters: number }>`
+    SELECT count(r.trial_index)::int AS rows,
+           count(DISTINCT (r.session_id, r.trial_index))::int AS distinct_trials,
+           (SELECT coalesce(sum(stored_trials), 0) FROM study_sessions WHERE code_hash = ANY(${[...codeHashes]}))::int AS counters
+    FROM study_sessions s LEFT JOIN trial_responses r ON r.session_id = s.id
+    WHERE s.code_hash = ANY(${[...codeHashes]})`.execute(db);
+  const row = r.rows[0]!;
+  return { rows: row.rows, distinctTrials: row.distinct_trials, sessionCounters: row.counters };
 }

@@ -1,7 +1,7 @@
 import 'server-only';
 import { createReadStream } from 'node:fs';
 import { stat } from 'node:fs/promises';
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
 import { getEnv } from './env';
 
@@ -48,6 +48,18 @@ export async function objectSize(key: string): Promise<number | null> {
     if ((error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404 || (error as { name?: string }).name === 'NotFound') return null;
     throw error;
   }
+}
+
+/** Every object under `prefix` with its size (all pages), for checks that nothing stray was left behind. */
+export async function listObjects(prefix: string): Promise<{ key: string; size: number }[]> {
+  const out: { key: string; size: number }[] = [];
+  let token: string | undefined;
+  do {
+    const page = await s3().send(new ListObjectsV2Command({ Bucket: bucket(), Prefix: prefix, ContinuationToken: token }));
+    for (const o of page.Contents ?? []) out.push({ key: o.Key!, size: o.Size ?? 0 });
+    token = page.IsTruncated ? page.NextContinuationToken : undefined;
+  } while (token);
+  return out;
 }
 
 /** The whole object, for tests and checks of small objects. */

@@ -105,11 +105,11 @@ export async function ensurePostgres({ name, port, database, fresh = false }) {
 
   let startedHere = false;
   const status = asOwner(pgCtl, ['-D', paths.data, 'status']);
+  const opts = [
+    `-c listen_addresses=127.0.0.1`, `-p ${port}`, `-c unix_socket_directories=${paths.socket}`,
+    `-c fsync=${fresh ? 'off' : 'on'}`, `-c max_connections=200`,
+  ].join(' ');
   if (status.status !== 0) {
-    const opts = [
-      `-c listen_addresses=127.0.0.1`, `-p ${port}`, `-c unix_socket_directories=${paths.socket}`,
-      `-c fsync=${fresh ? 'off' : 'on'}`, `-c max_connections=200`,
-    ].join(' ');
     const r = asOwner(pgCtl, ['-D', paths.data, '-l', paths.logFile, '-o', opts, '-w', '-t', '60', 'start']);
     if (r.status !== 0) throw new Error(`pg_ctl start failed:\n${r.stdout}\n${r.stderr}\nsee ${paths.logFile}`);
     startedHere = true;
@@ -126,7 +126,7 @@ export async function ensurePostgres({ name, port, database, fresh = false }) {
     asOwner(pgCtl, ['-D', paths.data, 'stop', '-m', 'fast', '-w'], { stdio: 'ignore' });
     if (fresh) rmSync(paths.base, { recursive: true, force: true });
   };
-  return { url, adminUrl, stop, startedHere, paths, bin };
+  return { url, adminUrl, stop, startedHere, paths, bin, options: opts };
 }
 
 async function createDatabaseIfMissing(bin, port, database) {

@@ -30,6 +30,11 @@ export async function prepareTestEnvironment({ fresh }) {
     DATABASE_URL: it.url,
     TEST_DATABASE_URL: it.url,
     TEST_ADMIN_DATABASE_URL: it.adminUrl,
+    // For the tests that stop and start the cluster under a running job (tests/support/postgres-control.ts).
+    TEST_PG_BIN: it.bin,
+    TEST_PG_DATA: it.paths.data,
+    TEST_PG_LOG: it.paths.logFile,
+    TEST_PG_OPTIONS: it.options,
     E2E_DATABASE_URL: e2e.url,
     E2E_PORT: String(E2E_PORT),
     APP_URL: appUrl,

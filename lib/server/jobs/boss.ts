@@ -1,5 +1,6 @@
 import 'server-only';
 import PgBoss from 'pg-boss';
+import { createDb, poolOf } from '@/db/client';
 import { getEnv } from '../env';
 import { logEvent } from '../log';
 
@@ -37,8 +38,12 @@ export function packQueueOptions() {
  * the maintenance that expires and retries jobs of dead workers (workers do; the web server does not need to).
  */
 export async function startBoss({ supervise, maintenanceIntervalSeconds = 10 }: { supervise: boolean; maintenanceIntervalSeconds?: number }): Promise<PgBoss> {
-  const boss = new PgBoss({ connectionString: getEnv().DATABASE_URL, schema: 'pgboss', max: 4, supervise, schedule: false, maintenanceIntervalSeconds });
+  // pg-boss runs on a pool of ours, whose connections carry error listeners (db/client.ts): its own pool lets a
+  // connection lost mid-query (a PostgreSQL restart) raise an uncaught error that ends the worker.
+  const pool = poolOf(createDb(getEnv().DATABASE_URL, 4));
+  const boss = new PgBoss({ db: { executeSql: (text: string, values?: unknown[]) => pool.query(text, values) }, schema: 'pgboss', supervise, schedule: false, maintenanceIntervalSeconds });
   boss.on('error', (error: Error) => logEvent('error', 'job queue error', { error: error.message }));
+  boss.on('stopped', () => void pool.end());
   await boss.start();
   await boss.createQueue(PACK_QUEUE, packQueueOptions());
   await boss.createQueue(RUN_ORDER_QUEUE, runOrderQueueOptions());

@@ -9,11 +9,11 @@ import {
   claimParticipantIndex,
   completeSession,
   countResponses,
+  countTrialsOfSessions,
   findSessionByCodeHash,
-  insertResponseOnce,
   insertSession,
   listAnsweredIndices,
-  touchSession,
+  storeResponse,
   withdrawSession as withdrawRows,
 } from '@/db/repositories/study-sessions';
 import { buildTrialPlan, type StudyDesign, type TrialPlan } from '@/lib/study';
@@ -135,52 +135,79 @@ export async function resumeSession(db: Db, code: string): Promise<ParticipantSe
   return sessionValue(db, row, study, code);
 }
 
+/** What an answer needs of its session and study that never changes once the session exists (a study opened has its design fixed). */
+interface AnswerTarget {
+  sessionId: string;
+  participant: number;
+  plannedTrials: number;
+  study: { id: string; design: unknown; edition_id: string };
+}
+
+/** Sessions recently answered, by code hash, so that an answer costs one statement (see `storeResponse`). */
+const answerTargets = new Map<string, AnswerTarget>();
+const ANSWER_TARGET_CACHE_SIZE = 4096;
+
+async function answerTargetOf(db: Db, code: string): Promise<AnswerTarget> {
+  const hash = codeHashOf(code);
+  const cached = answerTargets.get(hash);
+  if (cached) return cached;
+  const { row, study } = await sessionOfCode(db, code);
+  const target = { sessionId: row.id, participant: row.participant_index, plannedTrials: row.planned_trials, study };
+  if (answerTargets.size >= ANSWER_TARGET_CACHE_SIZE) answerTargets.delete(answerTargets.keys().next().value!);
+  answerTargets.set(hash, target);
+  return target;
+}
+
 /**
  * Stores one answer. The first write of a (session, client trial id) — and of a trial index — wins; a retry gets
- * the same count back and `isNew: false`. Every answer names a trial of the participant's regenerated plan.
+ * the same count back and `isNew: false`. Every answer names a trial of the participant's regenerated plan. The
+ * write is one statement that takes the session's row lock, so it is atomic against a concurrent withdrawal or
+ * finish without an explicit transaction.
  */
 export async function submitResponse(db: Db, code: string, input: TrialResponseInput): Promise<ResponseReceiptValue> {
-  return db.transaction().execute(async (trx) => {
-    const { row, study } = await sessionOfCode(trx, code, true);
-    if (row.withdrawn_at) throw conflict('session-withdrawn', 'This session was withdrawn; its answers were deleted and no new ones are taken.');
-    if (row.completed_at) throw conflict('session-complete', `This session is complete: all ${row.planned_trials} trials are stored, and no further answers are taken.`);
-    const plan = await planOf(trx, study, row.participant_index);
-    const trial = plan.trials[input.trialIndex];
-    if (!trial || trial.index !== input.trialIndex) {
-      throw validationError('response', `There is no trial ${input.trialIndex} in this session: its trials are numbered 0 to ${plan.trials.length - 1}.`, { trialIndex: ['Unknown trial'] });
+  const target = await answerTargetOf(db, code);
+  const plan = await planOf(db, target.study, target.participant);
+  const trial = plan.trials[input.trialIndex];
+  if (!trial || trial.index !== input.trialIndex) {
+    throw validationError('response', `There is no trial ${input.trialIndex} in this session: its trials are numbered 0 to ${plan.trials.length - 1}.`, { trialIndex: ['Unknown trial'] });
+  }
+  const design = target.study.design as StudyDesign;
+  if (trial.task === 'categorisation') {
+    const keys = design.categorisation?.keys ?? [];
+    if (input.rating !== null) throw validationError('response', 'A categorisation trial takes a key, not a rating.', { rating: ['Not used by this trial'] });
+    if (input.responseKey !== null && !keys.some((k) => k.toLowerCase() === input.responseKey!.toLowerCase())) {
+      throw validationError('response', `This trial takes the key ${keys.join(' or ')}.`, { responseKey: ['Not a response key of this study'] });
     }
-    const design = study.design as StudyDesign;
-    if (trial.task === 'categorisation') {
-      const keys = design.categorisation?.keys ?? [];
-      if (input.rating !== null) throw validationError('response', 'A categorisation trial takes a key, not a rating.', { rating: ['Not used by this trial'] });
-      if (input.responseKey !== null && !keys.some((k) => k.toLowerCase() === input.responseKey!.toLowerCase())) {
-        throw validationError('response', `This trial takes the key ${keys.join(' or ')}.`, { responseKey: ['Not a response key of this study'] });
-      }
-    } else if (input.responseKey !== null) {
-      throw validationError('response', 'A pair-similarity trial takes a rating, not a key.', { responseKey: ['Not used by this trial'] });
-    }
-    const isCorrect =
-      trial.task === 'categorisation' && trial.correctKey !== null && input.responseKey !== null ? trial.correctKey.toLowerCase() === input.responseKey.toLowerCase() : null;
-    const isNew = await insertResponseOnce(trx, {
-      session_id: row.id,
-      client_trial_id: input.clientTrialId,
-      trial_index: trial.index,
-      task: trial.task,
-      is_practice: trial.task === 'categorisation' && trial.isPractice,
-      is_catch: trial.task === 'categorisation' && trial.isCatch,
-      response_key: input.responseKey,
-      rating: input.rating,
-      rt_ms: input.rtMs,
-      is_correct: isCorrect,
-      achieved_ms: input.achievedMs,
-      onset_ms: input.onsetMs,
-      offset_ms: input.offsetMs,
-      was_tab_hidden: input.wasTabHidden,
-      left_full_screen: input.leftFullScreen,
-    });
-    const stored = await touchSession(trx, row.id, isNew ? 1 : 0);
-    return { stored, planned: row.planned_trials, isComplete: false, isNew };
+  } else if (input.responseKey !== null) {
+    throw validationError('response', 'A pair-similarity trial takes a rating, not a key.', { responseKey: ['Not used by this trial'] });
+  }
+  const isCorrect =
+    trial.task === 'categorisation' && trial.correctKey !== null && input.responseKey !== null ? trial.correctKey.toLowerCase() === input.responseKey.toLowerCase() : null;
+  const { stored, isNew } = await storeResponse(db, {
+    session_id: target.sessionId,
+    client_trial_id: input.clientTrialId,
+    trial_index: trial.index,
+    task: trial.task,
+    is_practice: trial.task === 'categorisation' && trial.isPractice,
+    is_catch: trial.task === 'categorisation' && trial.isCatch,
+    response_key: input.responseKey,
+    rating: input.rating,
+    rt_ms: input.rtMs,
+    is_correct: isCorrect,
+    achieved_ms: input.achievedMs,
+    onset_ms: input.onsetMs,
+    offset_ms: input.offsetMs,
+    was_tab_hidden: input.wasTabHidden,
+    left_full_screen: input.leftFullScreen,
   });
+  if (stored === null) {
+    // The session stopped taking answers (or was deleted): say why.
+    answerTargets.delete(codeHashOf(code));
+    const { row } = await sessionOfCode(db, code);
+    if (row.withdrawn_at) throw conflict('session-withdrawn', 'This session was withdrawn; its answers were deleted and no new ones are taken.');
+    throw conflict('session-complete', `This session is complete: all ${row.planned_trials} trials are stored, and no further answers are taken.`);
+  }
+  return { stored, planned: target.plannedTrials, isComplete: false, isNew };
 }
 
 /** Completes the session once the server holds every planned trial, and gives the finish code (the same on a retry). */
@@ -206,4 +233,9 @@ export async function withdrawSession(db: Db, code: string): Promise<{ ok: true;
     const { row } = await sessionOfCode(trx, code, true);
     return { ok: true as const, deletedTrials: await withdrawRows(trx, row.id) };
   });
+}
+
+/** What the database holds for these sessions (the session code is the credential): rows, distinct trials, counters. */
+export function countSessionTrials(db: Db, codes: readonly string[]): Promise<{ rows: number; distinctTrials: number; sessionCounters: number }> {
+  return countTrialsOfSessions(db, codes.map(codeHashOf));
 }
