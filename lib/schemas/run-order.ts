@@ -9,6 +9,7 @@ const MAX_SEED = 4_294_967_295;
 const MAX_RUNS = 100;
 /** An hour per trial or interval is past any scanning or EEG design; it bounds typos. */
 const MAX_SECONDS = 3600;
+const MIN_TR_SECONDS = 0.05;
 const BIDS_LABEL = z.string().regex(/^[A-Za-z0-9]+$/, 'Use letters and digits only (BIDS labels)').max(64, 'At most 64 characters');
 
 const seconds = (what: string) =>
@@ -75,7 +76,8 @@ export const RunOrderItiSchema = z
 export const RunOrderTimingSchema = z.object({
   trialDuration: seconds('trial duration'),
   iti: RunOrderItiSchema,
-  tr: seconds('TR'),
+  // Below 50 ms no scanner acquires a volume; the floor also keeps the volume counts finite integers.
+  tr: seconds('TR').min(MIN_TR_SECONDS, `The TR must be at least ${MIN_TR_SECONDS} s`),
   dummyVolumes: z.number({ error: 'Give a number of dummy volumes' }).int('Dummy volumes are a whole number').min(0, 'Dummy volumes cannot be negative').max(1000, 'At most 1,000 dummy volumes'),
   /** Whether the dummy volumes are written to the data file (BIDS onsets then count from the first of them). */
   dummyVolumesStored: z.boolean(),

@@ -92,5 +92,8 @@ describe('checking a definition', () => {
     expect(paths).toContain('timing.trialDuration: The trial duration must be more than 0 s');
     expect(paths).toContain('timing.tr: The TR must be more than 0 s');
     expect(paths.some((p) => p.startsWith('timing.iti.mean: The mean must lie between'))).toBe(true);
+    // A TR of a denormal number of seconds would count more volumes than a safe integer holds.
+    const tiny = RunOrderDefinitionSchema.safeParse(def({ timing: { trialDuration: 1, iti: { kind: 'fixed', duration: 2 }, tr: 5e-324, dummyVolumes: 0, dummyVolumesStored: false } }));
+    expect(tiny.error!.issues.map((i) => `${i.path.join('.')}: ${i.message}`)).toEqual(['timing.tr: The TR must be at least 0.05 s']);
   });
 });
