@@ -41,6 +41,8 @@ export const POLICY = {
   'session:manage': EXPERIMENT,
   'runorder:read': ALL,
   'runorder:write': EXPERIMENT,
+  'results:read': ALL,
+  'results:write': EXPERIMENT,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type PolicyAction = keyof typeof POLICY;

@@ -14,3 +14,4 @@ export * from './participant-sessions';
 export * from './api-tokens';
 export * from './openapi';
 export * from './run-orders';
+export * from './study-results';
