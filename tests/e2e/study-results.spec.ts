@@ -73,8 +73,9 @@ test('after a participant session, the results page shows a curve for every dire
   await expect(page.getByTestId('pooled-fits').getByTestId('fit-row')).toHaveCount(2);
   await expect(page.getByTestId('results-caution')).toContainText('not proof of equality');
   await expect(page.getByTestId('plot-slopes').locator('circle.estimate')).toHaveCount(4);
-  await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: 'test-results/screens/study-results.png', fullPage: true });
+  await page.getByTestId('plot-curves').screenshot({ path: 'test-results/screens/study-results-curves.png' });
+  await expectNoSeriousA11yViolations(page);
 
   const stamp = (await (await page.request.get(`${api}/studies/${study.id}/results`)).json()) as { report: { edition: { contentHash: string }; counts: { trials: number } } };
   const trials = await results.download('download-trials');

@@ -18,6 +18,8 @@ export const metadata: Metadata = { title: 'Study results' };
 const num = (v: number | undefined | null, digits = 3) => (v === undefined || v === null || !Number.isFinite(v) ? '—' : v.toFixed(digits));
 const ci = (i: readonly [number, number] | undefined | null, digits = 3) => (i ? `[${num(i[0], digits)}, ${num(i[1], digits)}]` : '—');
 const pOf = (p: number | undefined | null) => (p === undefined || p === null ? '—' : p < 0.001 ? '< 0.001' : p.toFixed(3));
+/** p as in prose: "p = 0.617" or "p < 0.001". */
+const pText = (p: number) => (p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`);
 
 function boundNote(f: DirectionFitValue): string {
   const notes = [
@@ -32,7 +34,7 @@ function boundNote(f: DirectionFitValue): string {
 function FitsTable({ fits, testId, caption }: { fits: readonly DirectionFitValue[]; testId: string; caption: string }) {
   const th = 'py-1.5 pr-3 font-medium';
   return (
-    <div className="overflow-x-auto">
+    <div className="overflow-x-auto" role="region" aria-label={caption} tabIndex={0}>
       <table className="w-full text-sm" data-testid={testId}>
         <caption className="sr-only">{caption}</caption>
         <thead>
@@ -149,11 +151,11 @@ export default async function StudyResultsPage({ params }: { params: Promise<{ l
                   <tbody className="tabular">
                     <tr className="border-b-[0.5px] border-rule">
                       <th scope="row" className="py-1.5 pr-4 text-left font-sans font-medium">Common slope across directions (participants summed)</th>
-                      <td className="py-1.5">{section.groupSlopeTest ? `χ²(${section.groupSlopeTest.df}) = ${num(section.groupSlopeTest.statistic, 2)}, p ${pOf(section.groupSlopeTest.p)}` : '—'}</td>
+                      <td className="py-1.5">{section.groupSlopeTest ? `χ²(${section.groupSlopeTest.df}) = ${num(section.groupSlopeTest.statistic, 2)}, ${pText(section.groupSlopeTest.p)}` : '—'}</td>
                     </tr>
                     <tr className="border-b-[0.5px] border-rule">
                       <th scope="row" className="py-1.5 pr-4 text-left font-sans font-medium">Every PSE = 0 (no bias, pooled)</th>
-                      <td className="py-1.5">{section.noBiasTest ? `χ²(${section.noBiasTest.df}) = ${num(section.noBiasTest.statistic, 2)}, p ${pOf(section.noBiasTest.p)}` : '—'}</td>
+                      <td className="py-1.5">{section.noBiasTest ? `χ²(${section.noBiasTest.df}) = ${num(section.noBiasTest.statistic, 2)}, ${pText(section.noBiasTest.p)}` : '—'}</td>
                     </tr>
                     <tr className="border-b-[0.5px] border-rule">
                       <th scope="row" className="py-1.5 pr-4 text-left font-sans font-medium">Steepest / shallowest slope [95 % CI]</th>
@@ -190,7 +192,7 @@ export default async function StudyResultsPage({ params }: { params: Promise<{ l
                     {section.slopeTests.map((t) => (
                       <tr key={t.participant} className="border-b-[0.5px] border-rule">
                         <td className="py-1.5 pr-4">{t.participant}</td>
-                        <td className="py-1.5">{t.test ? `χ²(${t.test.df}) = ${num(t.test.statistic, 2)}, p ${pOf(t.test.p)}` : t.problem}</td>
+                        <td className="py-1.5">{t.test ? `χ²(${t.test.df}) = ${num(t.test.statistic, 2)}, ${pText(t.test.p)}` : t.problem}</td>
                       </tr>
                     ))}
                   </tbody>
