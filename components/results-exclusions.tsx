@@ -129,7 +129,7 @@ export function ResultsExclusions({
       </div>
 
       {canEdit && sessions.length > 0 ? (
-        <form onSubmit={submit} className="grid gap-3 border-t-[0.5px] border-rule pt-4 sm:grid-cols-[8rem_8rem_8rem_1fr_auto] sm:items-end" data-testid="exclusion-form" aria-label="Add a manual decision">
+        <form onSubmit={submit} className="grid gap-3 border-t-[0.5px] border-rule pt-4 sm:grid-cols-3 sm:items-end" data-testid="exclusion-form" aria-label="Add a manual decision">
           <div>
             <label htmlFor="exclusion-session" className="block text-sm font-medium">Participant</label>
             <select id="exclusion-session" className={SELECT} value={form.sessionId} onChange={(e) => setForm({ ...form, sessionId: e.target.value })} data-testid="exclusion-session">
@@ -146,7 +146,7 @@ export function ResultsExclusions({
               <option value="keep">Keep (override a rule)</option>
             </select>
           </div>
-          <Field id="exclusion-reason" label="Reason" value={form.reason} onChange={(e) => setForm({ ...form, reason: e.target.value })} error={errors.reason?.[0]} data-testid="exclusion-reason" />
+          <Field id="exclusion-reason" className="sm:col-span-2" label="Reason" value={form.reason} onChange={(e) => setForm({ ...form, reason: e.target.value })} error={errors.reason?.[0]} data-testid="exclusion-reason" />
           <Button type="submit" disabled={busy} data-testid="exclusion-save">Record</Button>
         </form>
       ) : null}

@@ -7,18 +7,23 @@ import type { DirectionEstimate, PlotText } from './types';
 const SIZE = 320;
 const RADIUS = 120;
 const CENTRE = SIZE / 2;
+/** The radius covers intervals up to this multiple of the largest estimate. */
+const MAX_EXTENT = 2;
 
 /**
  * A polar plot of the slope at the PSE by direction: each diameter θ is drawn at θ and θ + 180° (both ends of it),
  * the estimate as a point at radius ∝ slope and its 95 % interval as a radial bar; the estimates are joined into a
- * closed outline, which is a circle for a perfectly isotropic space. Rings mark nice slope values. Points carry
+ * closed outline, which is a circle for a perfectly isotropic space. Rings mark nice slope values; interval bars
+ * beyond twice the largest estimate are clipped at the edge. Points carry
  * `class="estimate"` and `data-direction`, interval bars `class="interval"`.
  */
 export function slopePolarSvg(estimates: readonly DirectionEstimate[], text: PlotText): string {
-  const top = Math.max(1e-12, ...estimates.map((e) => Math.max(e.value, e.interval?.[1] ?? 0)).filter(Number.isFinite));
+  const largest = Math.max(1e-12, ...estimates.map((e) => e.value).filter(Number.isFinite));
+  // Intervals of near-separable data run far out; the scale follows the estimates and longer bars are clipped.
+  const top = Math.min(largest * MAX_EXTENT, Math.max(largest, ...estimates.map((e) => e.interval?.[1] ?? 0).filter(Number.isFinite)));
   const ticks = niceTicks(0, top, 3).filter((t) => t > 0);
   const outer = Math.max(top, ticks[ticks.length - 1] ?? top);
-  const r = (v: number) => (Math.max(0, v) / outer) * RADIUS;
+  const r = (v: number) => (Math.min(outer, Math.max(0, v)) / outer) * RADIUS;
   // Screen y grows downwards: angle θ counter-clockwise from the positive x axis, as in the space's own plots.
   const at = (value: number, deg: number) => [CENTRE + r(value) * Math.cos((deg * Math.PI) / 180), CENTRE - r(value) * Math.sin((deg * Math.PI) / 180)] as const;
   const parts: string[] = [];

@@ -96,3 +96,22 @@ describe('niceTicks', () => {
     expect(niceTicks(0, 7, 3)).toEqual([0, 5]);
   });
 });
+
+describe('slopePolarSvg scale', () => {
+  it('follows the estimates and clips an interval that runs far beyond them', () => {
+    const svg = slopePolarSvg(
+      [
+        { directionDeg: 0, value: 2, interval: [1, 40] },
+        { directionDeg: 90, value: 2.5, interval: [2, 3] },
+      ],
+      { title: 't', description: 'd' },
+    );
+    const doc = parser.parse(svg);
+    const radius = (c: Node) => Math.hypot(Number(c.cx) - 160, Number(c.cy) - 160);
+    const steepest = elements(doc, 'circle').filter((c) => c.class === 'estimate' && c['data-direction'] === '90');
+    // Outer edge at 2 × 2.5 = 5 (a nice tick) → radius 120; the estimate 2.5 at half of it.
+    expect(radius(steepest[0]!)).toBeCloseTo(60, 0);
+    const bars = elements(doc, 'line').filter((l) => l.class === 'interval');
+    for (const b of bars) expect(Math.max(Math.hypot(Number(b.x1) - 160, Number(b.y1) - 160), Math.hypot(Number(b.x2) - 160, Number(b.y2) - 160))).toBeLessThanOrEqual(120.01);
+  });
+});

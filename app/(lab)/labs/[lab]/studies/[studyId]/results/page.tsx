@@ -172,8 +172,8 @@ export default async function StudyResultsPage({ params }: { params: Promise<{ l
                 <FitsTable fits={section.pooled} testId="pooled-fits" caption="Pooled fits by direction" />
               </section>
 
-              <section aria-labelledby="slopes-heading" className="grid gap-6 lg:grid-cols-2">
-                <h2 id="slopes-heading" className="text-lg font-semibold lg:col-span-2">Slope and PSE by direction</h2>
+              <section aria-labelledby="slopes-heading" className="space-y-6">
+                <h2 id="slopes-heading" className="text-lg font-semibold">Slope and PSE by direction</h2>
                 <Plot report={report} kind="slopes" href={`${api}/plots/slopes`} label="Slope at the PSE, both ends of each diameter, with 95 % intervals" />
                 <Plot report={report} kind="pse" href={`${api}/plots/pse`} label="PSE with 95 % intervals; dashed: no bias" />
               </section>
