@@ -3,6 +3,8 @@ import { analyseCategorisation, analyseCategorisationNow, assembleDirectionData,
 import { evaluatePsychometric, seededRandom } from '@/lib/stats';
 
 const LEVELS = [-0.8, -0.533, -0.267, 0, 0.267, 0.533, 0.8];
+/** Seconds of fitting when idle; the shared 2-core machine runs it several times slower under load. */
+const ANALYSIS_TIMEOUT_MS = 60_000;
 const OPTIONS: AnalysisOptions = { link: 'logit', lapse: { max: 0.06 }, resamples: 200, seed: 99, alpha: 0.05 };
 
 /** Invented observers answering a logistic ψ with the given spread per direction (seeded). */
@@ -67,7 +69,7 @@ describe('analyseCategorisation', () => {
     expect(a.verdict!.text).toMatch(/slope/);
     expect(analyseCategorisationNow(data, OPTIONS)).toEqual(a);
     expect(analyseCategorisationNow(data, { ...OPTIONS, seed: 100 }).pooled[0]!.intervals).not.toEqual(a.pooled[0]!.intervals);
-  });
+  }, ANALYSIS_TIMEOUT_MS);
 
   it('finds a threefold slope difference between two directions with enough trials', () => {
     const data = assembleDirectionData(simulate(4, { 0: 0.06, 90: 0.18 }, 20, 2), [0, 90]);
@@ -75,7 +77,7 @@ describe('analyseCategorisation', () => {
     expect(a.groupSlopeTest!.p).toBeLessThan(0.01);
     expect(a.verdict!.hasSlopeDifference).toBe(true);
     expect(a.slopeRatio!.interval[0]).toBeGreaterThan(1.5);
-  });
+  }, ANALYSIS_TIMEOUT_MS);
 
   it('reports, rather than fails on, directions too thin to fit and a single direction', () => {
     const trials = simulate(1, { 0: 0.1 }, 6, 3);
@@ -87,7 +89,7 @@ describe('analyseCategorisation', () => {
     expect(a.groupSlopeTest).toBeNull();
     expect(a.verdict).toBeNull();
     expect(a.notes.length).toBeGreaterThan(0);
-  });
+  }, ANALYSIS_TIMEOUT_MS);
 
   it('gives every fit set its own seed', () => {
     const seeds = new Set(Array.from({ length: 1000 }, (_, i) => fitSetSeed(7, i)));
