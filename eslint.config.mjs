@@ -3,7 +3,7 @@ import nextTypescript from 'eslint-config-next/typescript';
 
 // The pure core must stay free of the framework, the database and Node I/O, so the browser can run it
 // and its output stays deterministic.
-const PURE_CORE = ['lib/shape', 'lib/space', 'lib/boundary', 'lib/edition', 'lib/render', 'lib/pack', 'lib/stats', 'lib/study', 'lib/sequence'];
+const PURE_CORE = ['lib/shape', 'lib/space', 'lib/boundary', 'lib/edition', 'lib/render', 'lib/pack', 'lib/stats', 'lib/study', 'lib/sequence', 'lib/results', 'lib/plot'];
 const FORBIDDEN_IN_CORE = [
   { group: ['next', 'next/*', 'react', 'react/*', 'react-dom', 'react-dom/*'], message: 'The pure core never imports Next or React.' },
   { group: ['zod', 'zod/*'], message: 'Validation belongs in lib/schemas; the core takes typed values.' },

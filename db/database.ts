@@ -312,6 +312,46 @@ export interface RunOrdersTable {
   updated_at: Generated<Date>;
 }
 
+/** The analysis settings of a study's results (link, lapse, resamples, seed, exclusion rules). */
+export interface StudyResultSettingsTable {
+  study_id: string;
+  settings: ColumnType<unknown, string, string>;
+  updated_by: string | null;
+  updated_at: Generated<Date>;
+}
+
+/** A manual exclusion decision (exclude a session or a trial, or keep one a rule left out); removals stay recorded. */
+export interface StudyExclusionsTable {
+  id: Generated<string>;
+  study_id: string;
+  session_id: string;
+  trial_index: number | null;
+  action: 'exclude' | 'keep';
+  reason: string;
+  created_by: string | null;
+  created_at: Generated<Date>;
+  removed_at: Date | null;
+  removed_by: string | null;
+}
+
+export type StudyResultState = 'queued' | 'running' | 'ready' | 'failed';
+
+/** Computed results of a study, cached by the hash of their input; long ones are computed by a job. */
+export interface StudyResultsTable {
+  id: Generated<string>;
+  study_id: string;
+  data_hash: string;
+  state: StudyResultState;
+  progress: Generated<number>;
+  input: ColumnType<unknown, string, string>;
+  result: ColumnType<unknown | null, string | null, string | null>;
+  error: string | null;
+  job_id: string | null;
+  compute_ms: number | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
 /** The Kysely database: one interface per table. */
 export interface Database {
   labs: LabsTable;
@@ -333,6 +373,9 @@ export interface Database {
   study_sessions: StudySessionsTable;
   trial_responses: TrialResponsesTable;
   space_study_links: SpaceStudyLinksTable;
+  study_result_settings: StudyResultSettingsTable;
+  study_exclusions: StudyExclusionsTable;
+  study_results: StudyResultsTable;
 }
 
 export type LabRow = Selectable<LabsTable>;
@@ -353,3 +396,5 @@ export type RunOrderRow = Selectable<RunOrdersTable>;
 export type StudySessionRow = Selectable<StudySessionsTable>;
 export type TrialResponseRow = Selectable<TrialResponsesTable>;
 export type SpaceStudyLinkRow = Selectable<SpaceStudyLinksTable>;
+export type StudyExclusionRow = Selectable<StudyExclusionsTable>;
+export type StudyResultRow = Selectable<StudyResultsTable>;

@@ -10,6 +10,7 @@ import * as m20261202110000 from './20261202110000_create_studies';
 import * as m20261202120000 from './20261202120000_create_run_orders';
 import * as m20261202130000 from './20261202130000_create_lab_api_tokens';
 import * as m20261202140000 from './20261202140000_create_sessions_and_trials';
+import * as m20261202150000 from './20261202150000_create_study_results';
 import * as m20261202160000 from './20261202160000_create_space_study_links';
 
 /**
@@ -28,5 +29,6 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202120000_create_run_orders': m20261202120000,
   '20261202130000_create_lab_api_tokens': m20261202130000,
   '20261202140000_create_sessions_and_trials': m20261202140000,
+  '20261202150000_create_study_results': m20261202150000,
   '20261202160000_create_space_study_links': m20261202160000,
 };

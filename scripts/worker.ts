@@ -1,6 +1,6 @@
 // `npm run worker`: a pack and run order worker process. It takes pack jobs from the queue in PostgreSQL and renders
 // them with a worker-thread pool across all cores, uploading the zips to the object store; and it runs the background
-// type-1 index-1 searches of run orders (more than 12 conditions). Run as many as you like,
+// type-1 index-1 searches of run orders (more than 12 conditions) and the study results too long for a request. Run as many as you like,
 // on as many machines as share the database (DATABASE_URL) and the object store (S3_*).
 import { createServer } from 'node:http';
 import { createDb } from '@/db/client';
@@ -8,6 +8,7 @@ import { getEnv } from '@/lib/server/env';
 import { startBoss } from '@/lib/server/jobs/boss';
 import { startPackWorker } from '@/lib/server/jobs/pack-worker';
 import { PackPool } from '@/lib/server/jobs/pack-pool';
+import { startResultsWorker } from '@/lib/server/jobs/results-worker';
 import { startRunOrderWorker } from '@/lib/server/jobs/run-order-worker';
 
 // pg-boss 10 records a job's end without awaiting it; if the database is away at that moment the rejection is
@@ -23,7 +24,8 @@ await pool.warm();
 const boss = await startBoss({ supervise: true });
 const stopWorking = await startPackWorker({ db, boss, pool });
 const stopSearching = await startRunOrderWorker({ db, boss });
-console.log(`[worker] taking pack jobs with ${pool.size} pack threads, and run order searches`);
+const stopComputing = await startResultsWorker({ db, boss });
+console.log(`[worker] taking pack jobs with ${pool.size} pack threads, run order searches and study results`);
 
 // An optional health port, for process supervisors and the e2e harness.
 const healthPort = Number(process.env.WORKER_HEALTH_PORT ?? 0);
@@ -42,6 +44,7 @@ async function stop(signal: string) {
   health?.close();
   await stopWorking();
   await stopSearching();
+  await stopComputing();
   await boss.stop({ graceful: true, wait: true });
   await pool.close();
   await db.destroy();

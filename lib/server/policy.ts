@@ -44,6 +44,8 @@ export const POLICY = {
   'similarity:read': ALL,
   'runorder:read': ALL,
   'runorder:write': EXPERIMENT,
+  'results:read': ALL,
+  'results:write': EXPERIMENT,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type PolicyAction = keyof typeof POLICY;

@@ -11,7 +11,7 @@ import { callRoute, createLabWithEveryRole, type TestLab } from '../support/acto
 const WRITES: Record<Role, PolicyAction[]> = {
   owner: [...POLICY_ACTIONS],
   designer: ['seed:write', 'space:write', 'space:derive', 'boundary:write', 'edition:freeze', 'edition:submit', 'edition:comment', 'profile:write'],
-  experimenter: ['boundary:write', 'space:derive', 'study:write', 'session:manage', 'runorder:write', 'pack:create', 'edition:comment', 'profile:write'],
+  experimenter: ['boundary:write', 'space:derive', 'study:write', 'session:manage', 'runorder:write', 'results:write', 'pack:create', 'edition:comment', 'profile:write'],
   reviewer: ['edition:comment', 'edition:decide'],
 };
 const isRead = (a: PolicyAction) => a.endsWith(':read');

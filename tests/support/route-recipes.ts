@@ -240,6 +240,23 @@ export async function prepareRouteRecipes(lab: TestLab): Promise<RecipeBook> {
     ['downloadStudyTrialsCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 }), (b) => {
       expect(formulaCellsIn(String(b)), 'the trials CSV neutralises formula cells').toEqual([]);
     }],
+    ['getStudyResults', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+    ['getResultSettings', () => ({ as: 'reviewer', params: { ...L(), studyId: ids.study! }, status: 200 })],
+    ['updateResultSettings', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, body: { link: 'probit', lapseMode: 'fixed', lapseValue: 0.02, resamples: 1000, seed: 5, alpha: 0.05, catchAccuracyMin: 0.5, rtMadK: 3 }, status: 200 })],
+    ['createResultExclusion', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, body: { sessionId: ids.session!, trialIndex: null, action: 'keep', reason: 'Checked by hand' }, status: 201 }), (b) => {
+      ids.resultExclusion = (b as { id: string }).id;
+    }],
+    ['listResultExclusions', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+    ['removeResultExclusion', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study!, exclusionId: ids.resultExclusion! }, status: 204 })],
+    ['retryStudyResults', () => ({ as: 'experimenter', params: { ...L(), studyId: ids.study! }, status: 200 })],
+    ['downloadResultsReport', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
+    ['downloadResultsTrialsCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 }), (b) => {
+      expect(formulaCellsIn(String(b)), 'the results trials.csv neutralises formula cells').toEqual([]);
+    }],
+    ['downloadResultsFitsCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 }), (b) => {
+      expect(formulaCellsIn(String(b)), 'fits.csv neutralises formula cells').toEqual([]);
+    }],
+    ['downloadResultsPlot', () => ({ as: 'token', params: { ...L(), studyId: ids.study!, plot: 'curves' }, status: 200 })],
     ['getStudySimilarity', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 })],
     ['downloadStudySimilarityCsv', () => ({ as: 'token', params: { ...L(), studyId: ids.study! }, status: 200 }), (b) => {
       expect(formulaCellsIn(String(b)), 'similarity.csv neutralises formula cells').toEqual([]);

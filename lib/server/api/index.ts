@@ -15,3 +15,4 @@ export * from './api-tokens';
 export * from './openapi';
 export * from './run-orders';
 export * from './study-similarity';
+export * from './study-results';

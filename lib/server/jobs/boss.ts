@@ -47,6 +47,7 @@ export async function startBoss({ supervise, maintenanceIntervalSeconds = 10 }: 
   await boss.start();
   await boss.createQueue(PACK_QUEUE, packQueueOptions());
   await boss.createQueue(RUN_ORDER_QUEUE, runOrderQueueOptions());
+  await boss.createQueue(STUDY_RESULTS_QUEUE, studyResultsQueueOptions());
   return boss;
 }
 
@@ -70,5 +71,24 @@ export async function sendPackJob(boss: PgBoss, data: PackJobData): Promise<stri
 export async function sendRunOrderJob(boss: PgBoss, data: RunOrderJobData): Promise<string> {
   const id = await boss.send(RUN_ORDER_QUEUE, data, runOrderQueueOptions());
   if (!id) throw new Error(`the job queue "${RUN_ORDER_QUEUE}" refused the job (does the queue exist?)`);
+  return id;
+}
+
+/** The queue of study results too long to compute in a request (over about a second of fitting). */
+export const STUDY_RESULTS_QUEUE = 'study-results';
+
+export interface StudyResultsJobData {
+  resultId: string;
+}
+
+/** A computation is deterministic: only a dead worker's job is retried. */
+export function studyResultsQueueOptions() {
+  return { name: STUDY_RESULTS_QUEUE, retryLimit: 1, retryDelay: 2, expireInSeconds: 900 };
+}
+
+/** Queues a results computation; throws when the queue refuses it. */
+export async function sendStudyResultsJob(boss: PgBoss, data: StudyResultsJobData): Promise<string> {
+  const id = await boss.send(STUDY_RESULTS_QUEUE, data, studyResultsQueueOptions());
+  if (!id) throw new Error(`the job queue "${STUDY_RESULTS_QUEUE}" refused the job (does the queue exist?)`);
   return id;
 }

@@ -7,7 +7,7 @@ import type { Db } from '@/db/client';
 import { toPage } from '@/db/pagination';
 import { insertAuditEvent } from '@/db/repositories/audit-events';
 import { getEditionSnapshot } from '@/db/repositories/editions';
-import { getStudy } from '@/db/repositories/studies';
+import { getStudy, type StudyListRow } from '@/db/repositories/studies';
 import { deleteSession as deleteRow, findSessionOfStudy, getSessionWithFigures, listSessions, listStudyResponses, setSessionExclusion, type SessionListRow } from '@/db/repositories/study-sessions';
 import { buildTrialPlan, type StudyDesign, type Trial } from '@/lib/study';
 import type { Page } from '@/lib/schemas/common';
@@ -75,7 +75,12 @@ const StimulusIds = z.object({ stimuli: z.array(z.object({ id: z.string() })) })
 /** Every stored trial of the study, joined with its planned trial (regenerated from the seed and participant index). */
 export async function listStudyTrials(db: Db, actor: LabActor, studyId: string): Promise<TrialRecordValue[]> {
   authorize(actor, 'study:read');
-  const study = await getStudy(db, actor.labId, studyId);
+  return studyTrialRecords(db, await getStudy(db, actor.labId, studyId));
+}
+
+/** The trial records of a study already found and authorised (the results service and its job use them too). */
+export async function studyTrialRecords(db: Db, study: Pick<StudyListRow, 'id' | 'edition_id' | 'design'>): Promise<TrialRecordValue[]> {
+  const studyId = study.id;
   const stimulusIds = StimulusIds.parse(await getEditionSnapshot(db, study.edition_id)).stimuli.map((s) => s.id);
   const plans = new Map<number, readonly Trial[]>();
   const rows = await listStudyResponses(db, studyId);

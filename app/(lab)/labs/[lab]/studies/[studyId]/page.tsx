@@ -50,6 +50,13 @@ export default async function StudyPage({ params }: { params: Promise<{ lab: str
         </div>
       ) : null}
       {sessions ? (
+        <p className="mb-6 text-sm">
+          <Link href={`/labs/${lab}/studies/${studyId}/results`} className="text-accent underline underline-offset-2" data-testid="study-results-link">
+            Results: fits per direction, isotropy test, exports
+          </Link>
+        </p>
+      ) : null}
+      {sessions ? (
         <div className="mb-10">
           <StudySessionsMonitor lab={lab} studyId={studyId} initial={sessions} canManage={can(actor.role, 'session:manage')} />
         </div>

@@ -1,0 +1,3 @@
+import { downloadResultsFitsCsvRoute } from '@/lib/server/api/study-results';
+import { toHandler } from '@/lib/server/http';
+export const GET = toHandler(downloadResultsFitsCsvRoute);

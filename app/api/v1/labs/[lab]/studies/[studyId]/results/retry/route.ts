@@ -1,0 +1,3 @@
+import { retryStudyResultsRoute } from '@/lib/server/api/study-results';
+import { toHandler } from '@/lib/server/http';
+export const POST = toHandler(retryStudyResultsRoute);

@@ -1,0 +1,3 @@
+import { downloadResultsTrialsCsvRoute } from '@/lib/server/api/study-results';
+import { toHandler } from '@/lib/server/http';
+export const GET = toHandler(downloadResultsTrialsCsvRoute);
