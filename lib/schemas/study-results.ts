@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { LabPathSchema } from './account';
+import { StudySimilaritySchema } from './similarity';
 
 /** Resamples allowed: at least 1,000 for reportable percentile intervals, at most 10,000 (minutes of work). */
 export const MIN_RESAMPLES = 1000;
@@ -115,7 +116,7 @@ export type ReportExclusionValue = z.infer<typeof ReportExclusionSchema>;
 
 /**
  * `report.json`: a study's results, stamped with the study and the edition's content hash. Analyses live under
- * `sections` by name (`categorisation` now; others, such as pair similarity, are added beside it).
+ * `sections` by name: `categorisation`, and `similarity` (perceptual vs designed RDMs, MDS) in the download.
  */
 export const StudyReportSchema = z.object({
   format: z.literal('epicycle-study-report'),
@@ -128,7 +129,8 @@ export const StudyReportSchema = z.object({
   settings: ResultSettingsSchema,
   counts: z.object({ participants: z.number().int(), participantsIncluded: z.number().int(), trials: z.number().int(), trialsInFits: z.number().int() }),
   exclusions: z.array(ReportExclusionSchema),
-  sections: z.object({ categorisation: CategorisationSectionSchema.nullable() }),
+  /** `similarity` is filled in the downloaded report.json of a study with a pair-similarity task. */
+  sections: z.object({ categorisation: CategorisationSectionSchema.nullable(), similarity: StudySimilaritySchema.nullable().optional() }),
 });
 export type StudyReportValue = z.infer<typeof StudyReportSchema>;
 

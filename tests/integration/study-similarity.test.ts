@@ -8,6 +8,8 @@ import { DEFAULT_SIMILARITY } from '@/lib/schemas/study';
 import type { StudySimilarityValue } from '@/lib/schemas/similarity';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 import { makeEdition, testSpaceSettings } from '../support/editions';
+import { resolveLabActor } from '@/lib/server/services/access';
+import { getStudyResults } from '@/lib/server/services/study-results';
 
 type Trial =
   | { task: 'similarity'; index: number; first: string; second: string }
@@ -176,6 +178,16 @@ describe('study similarity: perceptual vs designed RDMs, MDS, equalisation into 
       expect(lines[2]!.split('\t')).toEqual(['id', ...v.stimuli.map((s) => s.id)]);
       expect(lines).toHaveLength(2 + 1 + 13);
     }
+    // The study's report.json carries the same analysis as its similarity section, beside the fits (computed here
+    // at once rather than by a job, which this test runs no worker for).
+    const actor = await resolveLabActor(getDb(), { kind: 'user', userId: lab.members.reviewer.id }, lab.slug);
+    expect((await getStudyResults(getDb(), actor, studyId, { inlineFits: Number.POSITIVE_INFINITY })).state).toBe('ready');
+    const report = await callRoute(api.downloadResultsReportRoute, { params: S(), cookie: as('reviewer') });
+    expect(report.status, JSON.stringify(report.body)).toBe(200);
+    const sections = (report.body as { sections: { categorisation: unknown; similarity: StudySimilarityValue | null } }).sections;
+    expect(sections.categorisation).not.toBeNull();
+    expect(sections.similarity?.edition.contentHash).toBe(v.edition.contentHash);
+    expect(sections.similarity?.perceptual).toEqual(v.perceptual);
     const none = await callRoute(api.studySimilarityRdmRoute, { params: { lab: lab.slug, studyId: emptyStudyId, rdm: 'design' }, cookie: as('reviewer') });
     expect(none.status).toBe(409);
     const empty = (await callRoute(api.getStudySimilarityRoute, { params: { lab: lab.slug, studyId: emptyStudyId }, cookie: as('reviewer') })).body as StudySimilarityValue;

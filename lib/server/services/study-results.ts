@@ -45,6 +45,7 @@ import { logEvent } from '../log';
 import { authorize, type LabActor } from './access';
 import { neutralizeCsvCell } from '@/lib/csv';
 import { studyTrialRecords } from './study-sessions';
+import { getStudySimilarity } from './study-similarity';
 
 /**
  * A study's categorisation results: exclusions, fits per direction, the isotropy tests and the verdict, cached in
@@ -344,8 +345,12 @@ async function readyReport(db: Db, actor: LabActor, studyId: string): Promise<St
   return results.report;
 }
 
-export function studyReport(db: Db, actor: LabActor, studyId: string): Promise<StudyReportValue> {
-  return readyReport(db, actor, studyId);
+/** report.json: the categorisation results and, for a study with a pair-similarity task, the similarity section. */
+export async function studyReport(db: Db, actor: LabActor, studyId: string): Promise<StudyReportValue> {
+  const report = await readyReport(db, actor, studyId);
+  const design = (await getStudy(db, actor.labId, studyId)).design as StudyDesign;
+  const similarity = design.similarity ? await getStudySimilarity(db, actor, studyId) : null;
+  return { ...report, sections: { ...report.sections, similarity } };
 }
 
 const csvOf = (rows: readonly (readonly unknown[])[]) => stringify(rows.map((r) => r.map(neutralizeCsvCell)));

@@ -54,6 +54,14 @@ export default async function StudyPage({ params }: { params: Promise<{ lab: str
           <Link href={`/labs/${lab}/studies/${studyId}/results`} className="text-accent underline underline-offset-2" data-testid="study-results-link">
             Results: fits per direction, isotropy test, exports
           </Link>
+          {study.design.similarity ? (
+            <>
+              {' · '}
+              <Link href={`/labs/${lab}/studies/${studyId}/similarity`} className="text-accent underline underline-offset-2" data-testid="study-similarity-link">
+                Similarity: perceptual vs designed, MDS map, equalise
+              </Link>
+            </>
+          ) : null}
         </p>
       ) : null}
       {sessions ? (
