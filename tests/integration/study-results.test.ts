@@ -14,8 +14,9 @@ import { participantKeys } from '@/lib/study';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 import { parseCsv } from '../support/csv';
 import { makeEdition } from '../support/editions';
+import { keyedDraws } from '../support/keyed-draws';
 
-type Trial = { index: number; task: string; isPractice: boolean; isCatch: boolean; position: number; leftAnchor: 'A' | 'B'; correctKey: string | null };
+type Trial = { index: number; task: string; isPractice: boolean; isCatch: boolean; position: number; directionDeg: number; leftAnchor: 'A' | 'B'; correctKey: string | null };
 type Session = { sessionCode: string; participant: number; trials: Trial[] };
 type Problem = { status: number; code: string; errors?: Record<string, string[]> };
 
@@ -61,6 +62,8 @@ describe('study results', () => {
     const s = started.body as Session;
     const keys = participantKeys(['f', 'j'], s.participant);
     const random = seededRandom(seed);
+    // The choices are keyed by what each trial shows, so the study's random seed (the order) does not change them.
+    const draw = keyedDraws();
     const answerable = s.trials.filter((t) => t.task === 'categorisation' && !t.isPractice && !t.isCatch);
     const slowTrial = answerable[5]!.index;
     for (const t of s.trials) {
@@ -69,7 +72,7 @@ describe('study results', () => {
         const right = t.correctKey ?? 'f';
         key = t.isCatch && !catchRight ? (right === 'f' ? 'j' : 'f') : right;
       } else {
-        const choseB = random() < evaluatePsychometric('logit', { threshold: 0.05, spread: 0.15, lapse: 0.01 }, -t.position);
+        const choseB = draw(`${seed}|${t.directionDeg}|${t.position}`) < evaluatePsychometric('logit', { threshold: 0.05, spread: 0.15, lapse: 0.01 }, -t.position);
         key = (choseB ? 'B' : 'A') === t.leftAnchor ? keys.left : keys.right;
       }
       const rtMs = t.index === slowTrial ? 9000 : 450 + Math.round(100 * random());

@@ -1,15 +1,15 @@
-import { createHash, randomUUID } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as api from '@/lib/server/api';
 import { getDb } from '@/lib/server/db';
-import { seededRandom } from '@/lib/stats';
 import { DEFAULT_SIMILARITY } from '@/lib/schemas/study';
 import type { StudySimilarityValue } from '@/lib/schemas/similarity';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 import { makeEdition, testSpaceSettings } from '../support/editions';
 import { resolveLabActor } from '@/lib/server/services/access';
 import { getStudyResults } from '@/lib/server/services/study-results';
+import { keyedDraws } from '../support/keyed-draws';
 
 type Trial =
   | { task: 'similarity'; index: number; first: string; second: string }
@@ -58,17 +58,8 @@ describe('study similarity: perceptual vs designed RDMs, MDS, equalisation into 
     studyId = (study.body as { id: string }).id;
     const opened = await callRoute(api.openStudyRoute, { params: S(), body: { confirmEthics: true }, cookie: as('experimenter') });
     const token = new URL((opened.body as { inviteUrl: string }).inviteUrl).pathname.split('/').pop()!;
-    // Three simulated participants answer every trial through the API. Each answer's random number is keyed by
-    // what the trial shows (participant, direction and position, or the pair) and how often it came before, not by
-    // its place in the order: the study's seed, drawn anew each run, only shuffles the order, so the data are the
-    // same every run.
-    const seen = new Map<string, number>();
-    const draw = (key: string) => {
-      const n = seen.get(key) ?? 0;
-      seen.set(key, n + 1);
-      const hash = createHash('sha256').update(`${key}#${n}`).digest().readUInt32LE(0);
-      return seededRandom(hash)();
-    };
+    // Three simulated participants answer every trial through the API, the same answers every run (keyed draws).
+    const draw = keyedDraws();
     for (let p = 0; p < 3; p++) {
       const s = (await callRoute(api.startSessionRoute, { params: { token }, body: { screen: SCREEN } })).body as Session;
       for (const t of s.trials) {
