@@ -56,8 +56,8 @@ function benchInput(): PackInput {
 }
 
 async function main(): Promise<void> {
-  let peakRss = process.memoryUsage().rss;
-  const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 20);
+  let peakRss = process.memoryUsage.rss();
+  const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage.rss())), 20);
   const pool = new PackPool(Math.max(1, availableParallelism()));
   await pool.warm();
   const dir = await mkdtemp(join(tmpdir(), 'bench-pack-'));
@@ -68,14 +68,14 @@ async function main(): Promise<void> {
       renderPng: pool.render,
       runJob: pool.run,
       sha256Hex: (bytes) => createHash('sha256').update(bytes).digest('hex'),
-      onProgress: () => (peakRss = Math.max(peakRss, process.memoryUsage().rss)),
+      onProgress: () => (peakRss = Math.max(peakRss, process.memoryUsage.rss())),
     });
     const zipStart = performance.now();
     const out = createWriteStream(join(dir, 'pack.zip'));
     await pack.writeZip(
       (chunk) =>
         new Promise<void>((resolve, reject) => {
-          peakRss = Math.max(peakRss, process.memoryUsage().rss);
+          peakRss = Math.max(peakRss, process.memoryUsage.rss());
           out.write(chunk, (error) => (error ? reject(error) : resolve()));
         }),
     );
@@ -87,7 +87,7 @@ async function main(): Promise<void> {
     const breakdown = Object.fromEntries([...Object.entries(pack.timings), ['zip', end - zipStart]].map(([k, v]) => [k, Math.round(v as number)]));
     const zipBytes = (await stat(join(dir, 'pack.zip'))).size;
     clearInterval(sampler);
-    peakRss = Math.max(peakRss, process.memoryUsage().rss);
+    peakRss = Math.max(peakRss, process.memoryUsage.rss());
     console.log(
       JSON.stringify({
         stimuli: layout,

@@ -23,7 +23,7 @@ import { sha256Sums } from './sha256-sums';
 import { stimuliCsv } from './stimuli-csv';
 import { synthesizeStimuli } from './synthesize-stimuli';
 import { trialListCsv } from './trial-list-csv';
-import type { PremadeZip } from './zip-entries';
+import type { CompressedFiles } from './compress-files';
 import { zipPack } from './zip-pack';
 import type { BuiltPack, ManifestRdm, ManifestStimulus, PackBackends, PackFile, PackInput, PackManifest, PackStage } from './types';
 
@@ -150,11 +150,10 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
     splitEvenly(stimuli.length, PACK_LIMITS.perimeterBlocks).map(({ from, to }) => run({ kind: 'perimeters', descriptors: stimuli.slice(from, to).map((s) => s.descriptor) })),
   );
   perimetersReady.catch(() => undefined);
-  // The SVGs' DEFLATE work, ahead of the zip: runs of consecutive paths, each its own zip (zipEntries).
+  // The SVGs' DEFLATE work, ahead of the zip (compressFiles).
   const date = new Date(Date.parse(input.edition.createdAt));
-  const sortedSvgs = [...svgFiles].sort(byPath);
-  const premade: Promise<PremadeZip>[] = splitEvenly(sortedSvgs.length, PACK_LIMITS.svgZipBlocks).map(({ from, to }) =>
-    run({ kind: 'zip-entries', files: sortedSvgs.slice(from, to).map(({ path, data, compression }) => ({ path, data, compression })), dateMs: date.getTime() }),
+  const compressed: Promise<CompressedFiles>[] = splitEvenly(svgFiles.length, PACK_LIMITS.svgCompressBlocks).map(({ from, to }) =>
+    run({ kind: 'compress', files: svgFiles.slice(from, to).map(({ path, data, compression }) => ({ path, data, compression })) }),
   );
   timings.rdm += performance.now() - rdmStart;
 
@@ -172,8 +171,8 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
   timings.rdm += performance.now() - rdmWait;
   const rdmFiles = RDM_FILES.map((r) => ({ ...r, path: `rdm/${r.name}.tsv` }));
   const rdmPackFiles = rdmFiles.map((r, i) => hashed(r.path, rdmTexts[i]!));
-  for (const { path, data, compression } of rdmPackFiles) premade.push(run({ kind: 'zip-entries', files: [{ path, data, compression }], dateMs: date.getTime() }));
-  for (const p of premade) p.catch(() => undefined);
+  for (const { path, data, compression } of rdmPackFiles) compressed.push(run({ kind: 'compress', files: [{ path, data, compression }] }));
+  for (const p of compressed) p.catch(() => undefined);
   const perimeters = (await perimetersReady).flatMap((block) => Array.from(block));
 
   // Phase 7: the PNGs.
@@ -279,6 +278,6 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
     manifest: built.manifest,
     files: built.files,
     timings,
-    writeZip: async (sink) => zipPack(built.files, date, sink, await Promise.all(premade)),
+    writeZip: async (sink) => zipPack(built.files, date, sink, await Promise.all(compressed)),
   };
 }

@@ -35,7 +35,7 @@ export { packReadme, type PackReadmeContext } from './pack-readme';
 export { nonApprovedNotice } from './non-approved-notice';
 export { sha256Sums } from './sha256-sums';
 export { MANIFEST_SCHEMA } from './manifest-schema';
-export { zipPack } from './zip-pack';
+export { zipBytes, zipPack } from './zip-pack';
 export { buildPack } from './build-pack';
 export type {
   ManifestSchemaIssue,

@@ -3,9 +3,9 @@ import type { Contour, RasterExtent, ShapeDescriptor } from '../shape/types';
 import { silhouetteRdmRows } from '../space/silhouette-rdm-rows';
 import { spectrumRdmRows } from '../space/spectrum-rdm-rows';
 import type { ContourSpectrum, RdmRows } from '../space/types';
-import { rdmTsvRows } from './rdm-tsv';
+import { rdmTsvRowBytes } from './rdm-tsv';
 import type { PackFile } from './types';
-import { zipEntries, type PremadeZip } from './zip-entries';
+import { compressFiles, type CompressedFiles } from './compress-files';
 
 /**
  * A CPU-heavy, pure piece of a pack build, as plain data (typed arrays and plain objects), so a back end can run
@@ -14,10 +14,9 @@ import { zipEntries, type PremadeZip } from './zip-entries';
  * - `silhouette-rows`: rows `from` … `to − 1` of the silhouette RDM; `contours` are the stimuli from `from` on
  *   (the rows need no earlier ones), `size` the whole matrix's, `extent` the one of all stimuli;
  * - `perimeters`: `descriptorPerimeter` of each descriptor;
- * - `tsv-rows`: lines `from` … `to − 1` of an RDM table (`rdmTsvRows`; the header too when `from` is 0) as
+ * - `tsv-rows`: lines `from` … `to − 1` of an RDM table (`rdmTsvRowBytes`; the header too when `from` is 0) as
  *   UTF-8, from those full rows of the matrix (`rows`, row-major, `ids.length` values each);
- * - `zip-entries`: a zip of consecutive pack files, compressed ahead for `zipPack` (`zipEntries`), dated
- *   `dateMs` (ms since 1970, UTC).
+ * - `compress`: pack files compressed ahead for `zipPack` (`compressFiles`: native DEFLATE or STORE, CRC-32).
  */
 export type PackJob =
   | { readonly kind: 'contour-rows'; readonly spectra: readonly ContourSpectrum[]; readonly from: number; readonly to: number }
@@ -32,7 +31,7 @@ export type PackJob =
     }
   | { readonly kind: 'perimeters'; readonly descriptors: readonly ShapeDescriptor[] }
   | { readonly kind: 'tsv-rows'; readonly ids: readonly string[]; readonly rows: Float64Array; readonly from: number; readonly to: number }
-  | { readonly kind: 'zip-entries'; readonly files: readonly Pick<PackFile, 'path' | 'data' | 'compression'>[]; readonly dateMs: number };
+  | { readonly kind: 'compress'; readonly files: readonly Pick<PackFile, 'path' | 'data' | 'compression'>[] };
 
 /** What each kind of job gives back. */
 export interface PackJobResults {
@@ -40,7 +39,7 @@ export interface PackJobResults {
   readonly 'silhouette-rows': RdmRows;
   readonly perimeters: Float64Array;
   readonly 'tsv-rows': Uint8Array;
-  readonly 'zip-entries': PremadeZip;
+  readonly compress: CompressedFiles;
 }
 
 /** The result of a job of kind K. */
@@ -48,8 +47,6 @@ export type PackJobResult<K extends PackJob['kind'] = PackJob['kind']> = PackJob
 
 /** Runs a `PackJob` somewhere (a worker thread, or here) and resolves with its result. */
 export type PackJobRunner = <J extends PackJob>(job: J) => Promise<PackJobResult<J['kind']>>;
-
-const encoder = new TextEncoder();
 
 /** Runs one `PackJob` here. Worker threads call this with the jobs `buildPack` hands to `runJob`. */
 export function runPackJob<J extends PackJob>(job: J): Promise<PackJobResult<J['kind']>>;
@@ -66,8 +63,8 @@ export async function runPackJob(job: PackJob): Promise<PackJobResult> {
     case 'perimeters':
       return Float64Array.from(job.descriptors, descriptorPerimeter);
     case 'tsv-rows':
-      return encoder.encode(rdmTsvRows(job.rows, job.ids, job.from, job.to));
-    case 'zip-entries':
-      return zipEntries(job.files, new Date(job.dateMs));
+      return rdmTsvRowBytes(job.rows, job.ids, job.from, job.to);
+    case 'compress':
+      return compressFiles(job.files);
   }
 }

@@ -5,7 +5,7 @@ import { toPage } from '@/db/pagination';
 import { insertAuditEvent } from '@/db/repositories/audit-events';
 import { getEdition as getEditionRow, getEditionSnapshot as getSnapshotRow } from '@/db/repositories/editions';
 import { deleteRunOrder as deleteRunOrderRow, getRunOrder as getRunOrderRow, insertRunOrder, listRunOrders as listRunOrderRows, updateRunOrder, type RunOrderListRow } from '@/db/repositories/run-orders';
-import { zipEntries } from '@/lib/pack/zip-entries';
+import { zipBytes } from '@/lib/pack/zip-pack';
 import { bidsLabelsOf, buildRunOrderOf, checkRunOrderDefinition, definitionFieldOf, needsBackgroundSearch, runOrderResultOf } from '@/lib/run-order-build';
 import { runOrderFiles, type RunOrderFile } from '@/lib/sequence/run-order-files';
 import { SequenceError } from '@/lib/sequence/sequence-error';
@@ -157,8 +157,7 @@ export async function runOrderZip(db: Db, actor: LabActor, id: string): Promise<
   const row = await getRunOrderRow(db, actor.labId, id);
   const encoder = new TextEncoder();
   const files = runOrderFilesOf(row).map((f) => ({ path: f.name, data: encoder.encode(f.text), compression: 'DEFLATE' as const }));
-  const { bytes } = await zipEntries(files, row.edition_created_at);
-  return { fileName: `${runOrderSlug(row)}.zip`, bytes };
+  return { fileName: `${runOrderSlug(row)}.zip`, bytes: await zipBytes(files, row.edition_created_at) };
 }
 
 /** Sequence files for a pack: each ready run order of the edition under `<slug>/`, in the order given. */
