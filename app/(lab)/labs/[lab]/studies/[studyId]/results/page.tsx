@@ -113,7 +113,7 @@ export default async function StudyResultsPage({ params }: { params: Promise<{ l
         {report ? ` · ${report.counts.participantsIncluded} of ${report.counts.participants} participants, ${report.counts.trialsInFits} of ${report.counts.trials} trials in the fits` : ''}
       </p>
 
-      <div className="grid gap-10 xl:grid-cols-[1fr_22rem]">
+      <div className="grid gap-10 2xl:grid-cols-[1fr_22rem]">
         <div className="min-w-0 space-y-10">
           {isComputing ? (
             <section aria-labelledby="computing-heading" data-testid="results-computing">
