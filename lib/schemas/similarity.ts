@@ -49,15 +49,24 @@ export const StudySimilaritySchema = z.object({
   ),
   mds: z
     .object({
+      /** classical: Torgerson scaling of a complete RDM; smacof: metric MDS by majorisation over the rated pairs. */
+      method: z.enum(['classical', 'smacof']),
+      /** Pairs of the mapped stimuli with no rating (left out of a SMACOF map; 0 for a classical one). */
+      unratedPairs: z.number().int(),
+      /** Classical only: every eigenvalue, largest first (empty for SMACOF). */
       eigenvalues: z.array(z.number()),
       negativeEigenvalues: z.number().int(),
-      explained: z.number(),
+      /** Classical only: share of Σ|λ| in the two dimensions. */
+      explained: z.number().nullable(),
+      /** SMACOF only: normalised stress (stress-1) over the rated pairs. */
+      stress: z.number().nullable(),
+      iterations: z.number().int().nullable(),
       coordinates: z.array(z.tuple([z.number(), z.number()])),
       aligned: z.array(z.tuple([z.number(), z.number()])),
       procrustes: z.object({ rotation: z.array(z.array(z.number())), scale: z.number(), translation: z.array(z.number()), residual: z.number(), standardizedResidual: z.number() }),
     })
     .nullable(),
-  /** Why there is no MDS map (no ratings, or pairs without a rating), when there is none. */
+  /** Why there is no MDS map (too few rated stimuli, or rated pairs that do not link them all), when there is none. */
   mdsNote: z.string().nullable(),
   slopes: z.array(
     z.object({

@@ -51,6 +51,7 @@ export { checkSquareMatrix, type SquareMatrix } from './square-matrix';
 export { mantelTest, MIN_MANTEL_PERMUTATIONS, type MantelOptions, type MantelResult } from './mantel-test';
 export { symmetricEigen, type SymmetricEigen } from './symmetric-eigen';
 export { classicalMds, type ClassicalMds } from './classical-mds';
+export { smacof, type SmacofMds, type SmacofOptions } from './smacof';
 export { procrustes, type ProcrustesFit } from './procrustes';
 export { perceptualRdm, type NoiseCeiling, type PairRating, type PerceptualRdm, type PerceptualRdmOptions } from './perceptual-rdm';
 export { directionData, type DirectionAnswer, type DirectionData } from './direction-data';

@@ -10,6 +10,7 @@ import { makeEdition, testSpaceSettings } from '../support/editions';
 import { resolveLabActor } from '@/lib/server/services/access';
 import { getStudyResults } from '@/lib/server/services/study-results';
 import { keyedDraws } from '../support/keyed-draws';
+import { pearson } from '@/lib/stats';
 
 type Trial =
   | { task: 'similarity'; index: number; first: string; second: string }
@@ -39,28 +40,17 @@ describe('study similarity: perceptual vs designed RDMs, MDS, equalisation into 
   let studyId: string;
   let emptyStudyId: string;
   let spaceId: string;
+  let editionId: string;
   const as = (role: keyof TestLab['members']) => lab.members[role].cookie;
   const S = () => ({ lab: lab.slug, studyId });
   const sessionIds: string[] = [];
 
-  beforeAll(async () => {
-    lab = await createLabWithEveryRole(getDb());
-    const made = await makeEdition(lab, 'Similarity space', true);
-    spaceId = made.spaceId;
-    const snap = await callRoute(api.getEditionSnapshotRoute, { params: { lab: lab.slug, spaceId, number: '1' }, cookie: as('reviewer') });
-    const positions = new Map((snap.body as { stimuli: { id: string; position: { a: number; b: number } }[] }).stimuli.map((s) => [s.id, s.position]));
-    const study = await callRoute(api.createStudyRoute, {
-      params: { lab: lab.slug },
-      body: { name: 'Similarity study', editionId: made.editionId, consentText: 'I agree.', targetParticipants: 4, design: { stimulusSizeDeg: 4, categorisation: CATEGORISATION, similarity: SIMILARITY } },
-      cookie: as('experimenter'),
-    });
-    expect(study.status).toBe(201);
-    studyId = (study.body as { id: string }).id;
-    const opened = await callRoute(api.openStudyRoute, { params: S(), body: { confirmEthics: true }, cookie: as('experimenter') });
-    const token = new URL((opened.body as { inviteUrl: string }).inviteUrl).pathname.split('/').pop()!;
-    // Three simulated participants answer every trial through the API, the same answers every run (keyed draws).
+  const positions = new Map<string, { a: number; b: number }>();
+
+  /** Simulated participants answer every trial through the API, the same answers every run (keyed draws). */
+  async function answerEveryTrial(token: string, participants: number): Promise<void> {
     const draw = keyedDraws();
-    for (let p = 0; p < 3; p++) {
+    for (let p = 0; p < participants; p++) {
       const s = (await callRoute(api.startSessionRoute, { params: { token }, body: { screen: SCREEN } })).body as Session;
       for (const t of s.trials) {
         let responseKey: string | null = null;
@@ -81,6 +71,25 @@ describe('study similarity: perceptual vs designed RDMs, MDS, equalisation into 
         expect(r.status).toBe(200);
       }
     }
+  }
+
+  beforeAll(async () => {
+    lab = await createLabWithEveryRole(getDb());
+    const made = await makeEdition(lab, 'Similarity space', true);
+    spaceId = made.spaceId;
+    editionId = made.editionId;
+    const snap = await callRoute(api.getEditionSnapshotRoute, { params: { lab: lab.slug, spaceId, number: '1' }, cookie: as('reviewer') });
+    for (const st of (snap.body as { stimuli: { id: string; position: { a: number; b: number } }[] }).stimuli) positions.set(st.id, st.position);
+    const study = await callRoute(api.createStudyRoute, {
+      params: { lab: lab.slug },
+      body: { name: 'Similarity study', editionId: made.editionId, consentText: 'I agree.', targetParticipants: 4, design: { stimulusSizeDeg: 4, categorisation: CATEGORISATION, similarity: SIMILARITY } },
+      cookie: as('experimenter'),
+    });
+    expect(study.status).toBe(201);
+    studyId = (study.body as { id: string }).id;
+    const opened = await callRoute(api.openStudyRoute, { params: S(), body: { confirmEthics: true }, cookie: as('experimenter') });
+    const token = new URL((opened.body as { inviteUrl: string }).inviteUrl).pathname.split('/').pop()!;
+    await answerEveryTrial(token, 3);
     const sessions = await callRoute(api.listStudySessionsRoute, { params: S(), cookie: as('reviewer') });
     sessionIds.push(...(sessions.body as { items: { id: string }[] }).items.map((i) => i.id));
     const empty = await callRoute(api.createStudyRoute, {
@@ -135,6 +144,41 @@ describe('study similarity: perceptual vs designed RDMs, MDS, equalisation into 
     const spreadOf = (k: 0 | 1) => Math.max(...v.mds!.aligned.map((p) => p[k])) - Math.min(...v.mds!.aligned.map((p) => p[k]));
     expect(spreadOf(1)).toBeGreaterThan(spreadOf(0));
   });
+
+  it('maps a balanced subset of pairs, with pairs nobody rated, by SMACOF over the rated pairs', async () => {
+    const partial = await callRoute(api.createStudyRoute, {
+      params: { lab: lab.slug },
+      body: { name: 'Balanced pairs', editionId, consentText: 'I agree.', targetParticipants: 1, design: { stimulusSizeDeg: 4, categorisation: null, similarity: { ...SIMILARITY, pairSet: 'balanced', pairCount: 39 } } },
+      cookie: as('experimenter'),
+    });
+    expect(partial.status, JSON.stringify(partial.body)).toBe(201);
+    const id = (partial.body as { id: string }).id;
+    const opened = await callRoute(api.openStudyRoute, { params: { lab: lab.slug, studyId: id }, body: { confirmEthics: true }, cookie: as('experimenter') });
+    await answerEveryTrial(new URL((opened.body as { inviteUrl: string }).inviteUrl).pathname.split('/').pop()!, 1);
+    const v = (await callRoute(api.getStudySimilarityRoute, { params: { lab: lab.slug, studyId: id }, cookie: as('reviewer') })).body as StudySimilarityValue;
+    const unrated = v.perceptual!.values.flatMap((row, i) => row.filter((x, j) => j > i && x === null)).length;
+    expect(unrated).toBe(78 - 39);
+    expect(v.mdsNote).toBeNull();
+    expect(v.mds).toMatchObject({ method: 'smacof', unratedPairs: 39, eigenvalues: [], explained: null });
+    expect(v.mds!.iterations).toBeGreaterThan(0);
+    expect(v.mds!.stress).toBeGreaterThan(0);
+    expect(v.mds!.stress).toBeLessThan(0.35);
+    // The ratings follow the design stretched along b, so the map lines up with the design (Procrustes cannot
+    // undo the stretch, hence a looser bound than for the complete, three-participant map) ...
+    expect(v.mds!.aligned).toHaveLength(13);
+    expect(v.mds!.procrustes.standardizedResidual).toBeLessThan(0.8);
+    // ... and places the pairs nobody rated about as far apart as the observers would have rated them.
+    const xy = v.mds!.coordinates;
+    const mapped: number[] = [], expected: number[] = [];
+    v.perceptual!.values.forEach((row, i) =>
+      row.forEach((x, j) => {
+        if (j <= i || x !== null) return;
+        mapped.push(Math.hypot(xy[i]![0] - xy[j]![0], xy[i]![1] - xy[j]![1]));
+        expected.push(Math.hypot(v.stimuli[i]!.a - v.stimuli[j]!.a, B_STRETCH * (v.stimuli[i]!.b - v.stimuli[j]!.b)));
+      }),
+    );
+    expect(pearson(mapped, expected)).toBeGreaterThan(0.8);
+  }, 60_000);
 
   it('fits a pooled slope per direction and suggests compressing the steeper direction (predicted ratio 1)', async () => {
     const v = (await callRoute(api.getStudySimilarityRoute, { params: S(), cookie: as('reviewer') })).body as StudySimilarityValue;

@@ -17,6 +17,7 @@ import type { ShapeDescriptor } from '@/lib/shape';
 import { rescaleEqualization, type Equalization } from '@/lib/space';
 import {
   classicalMds,
+  smacof,
   directionData,
   fitPsychometric,
   mantelTest,
@@ -68,7 +69,10 @@ interface Analysis {
   perceptual: ReturnType<typeof perceptualRdm> | null;
   models: ModelRdms | null;
   correlations: StudySimilarityValue['correlations'];
-  mds: { result: ReturnType<typeof classicalMds>; fit: ReturnType<typeof procrustes> } | null;
+  mds:
+    | { method: 'classical'; result: ReturnType<typeof classicalMds>; fit: ReturnType<typeof procrustes>; unratedPairs: 0 }
+    | { method: 'smacof'; result: ReturnType<typeof smacof>; fit: ReturnType<typeof procrustes>; unratedPairs: number }
+    | null;
   mdsNote: string | null;
   slopes: StudySimilarityValue['slopes'];
   suggestions: { slopes: EqualizationSuggestion | null; map: EqualizationSuggestion | null; slopesNote: string | null; mapNote: string | null };
@@ -195,20 +199,26 @@ function analyse(loaded: Loaded): Analysis {
       correlations.push({ model, spearman: rho, pairs, mantel });
     }
   }
-  // Phase 3: classical MDS of a complete perceptual RDM, aligned to the design by Procrustes.
+  // Phase 3: the MDS map, aligned to the design by Procrustes: classical MDS of a complete perceptual RDM;
+  // with pairs not rated yet (a balanced subset of pairs, or too few sessions), metric MDS by majorisation over
+  // the rated pairs only (SMACOF), as long as they link every stimulus.
   let mds: Analysis['mds'] = null;
   let mdsNote: string | null = null;
   const unrated = perceptual ? Array.from(perceptual.values).filter((v, c) => Math.floor(c / perceptual.size) < c % perceptual.size && !Number.isFinite(v)).length : 0;
   if (!perceptual || ids.length < 3) mdsNote = 'An MDS map needs ratings of the pairs of at least three stimuli.';
-  else if (unrated > 0) mdsNote = `${unrated} pairs have no rating yet; classical MDS needs every pair of the rated stimuli.`;
   else {
-    const result = classicalMds(perceptual, 2);
     const design = stimuli.map((s) => [s.position.a, s.position.b]);
     try {
-      mds = { result, fit: procrustes(design, result.coordinates) };
+      if (unrated === 0) {
+        const result = classicalMds(perceptual, 2);
+        mds = { method: 'classical', result, fit: procrustes(design, result.coordinates), unratedPairs: 0 };
+      } else {
+        const result = smacof(perceptual, 2);
+        mds = { method: 'smacof', result, fit: procrustes(design, result.coordinates), unratedPairs: unrated };
+      }
     } catch (error) {
       if (!(error instanceof StatsError)) throw error;
-      mdsNote = `The map cannot be aligned to the design: ${error.message}`;
+      mdsNote = unrated > 0 ? `${unrated} pairs have no rating yet, and no map can be made from the others: ${error.message}` : `The map cannot be aligned to the design: ${error.message}`;
     }
   }
   // Phase 4: the equalisation suggestions, from the slopes and from the map.
@@ -232,6 +242,9 @@ function analyse(loaded: Loaded): Analysis {
 }
 
 const finiteOrNull = (v: number): number | null => (Number.isFinite(v) ? v : null);
+
+/** Eigenvalues below rounding level of the largest's size, i.e. really negative. */
+const negativeCount = (eigenvalues: readonly number[]): number => eigenvalues.filter((l) => l < -1e-9 * Math.abs(eigenvalues[0] ?? 1)).length;
 
 function rows(m: SquareMatrix): (number | null)[][] {
   return Array.from({ length: m.size }, (_, i) => Array.from({ length: m.size }, (_, j) => finiteOrNull(m.values[i * m.size + j] as number)));
@@ -257,9 +270,17 @@ function toValue(a: Analysis, derived: StudySimilarityValue['derivedSpaces']): S
     correlations: a.correlations,
     mds: a.mds
       ? {
-          eigenvalues: [...a.mds.result.eigenvalues],
-          negativeEigenvalues: a.mds.result.eigenvalues.filter((l) => l < -1e-9 * Math.abs(a.mds!.result.eigenvalues[0] ?? 1)).length,
-          explained: a.mds.result.explained,
+          method: a.mds.method,
+          unratedPairs: a.mds.unratedPairs,
+          ...(a.mds.method === 'classical'
+            ? {
+                eigenvalues: [...a.mds.result.eigenvalues],
+                negativeEigenvalues: negativeCount(a.mds.result.eigenvalues),
+                explained: a.mds.result.explained,
+                stress: null,
+                iterations: null,
+              }
+            : { eigenvalues: [], negativeEigenvalues: 0, explained: null, stress: a.mds.result.stress, iterations: a.mds.result.iterations }),
           coordinates: a.mds.result.coordinates.map((p) => [p[0] ?? 0, p[1] ?? 0] as [number, number]),
           aligned: a.mds.fit.aligned.map((p) => [p[0] ?? 0, p[1] ?? 0] as [number, number]),
           procrustes: {
@@ -285,7 +306,7 @@ async function derivedSpaces(db: Db, actor: LabActor, studyId: string): Promise<
 /**
  * Perceptual vs designed similarity of a study: the perceptual RDM of the pair ratings with its split-half
  * noise ceiling, its Spearman correlations and Mantel tests against the edition's design, contour and silhouette
- * RDMs, the classical MDS map aligned to the design, the pooled slope per direction, and the equalisation
+ * RDMs, the MDS map aligned to the design (classical, or SMACOF over the rated pairs when some are missing), the pooled slope per direction, and the equalisation
  * suggestions. Excluded sessions are left out.
  */
 export async function getStudySimilarity(db: Db, actor: LabActor, studyId: string): Promise<StudySimilarityValue> {

@@ -9,6 +9,7 @@ import {
   procrustes,
   radialRates,
   seededRandom,
+  smacof,
   spearman,
   StatsError,
   suggestEqualization,
@@ -89,6 +90,71 @@ describe('classicalMds', () => {
     const { eigenvalues } = classicalMds(d, 2);
     expect(Math.min(...eigenvalues)).toBeLessThan(-0.1);
     expect(eigenvalues).toEqual([...eigenvalues].sort((a, b) => b - a));
+  });
+});
+
+describe('smacof (weighted majorisation, de Leeuw & Mair 2009)', () => {
+  const random = seededRandom(2009);
+  const points = Array.from({ length: 14 }, () => [random() * 4 - 2, random() * 4 - 2]);
+  const full = distances(points);
+  /** The same matrix with a share of its pairs blanked (NaN), kept symmetric; a path through all items stays. */
+  function withGaps(share: number, seed: number): SquareMatrix {
+    const draw = seededRandom(seed);
+    const n = full.size;
+    const values = Float64Array.from(full.values);
+    for (let i = 0; i < n; i++) for (let j = i + 2; j < n; j++) if (draw() < share) values[i * n + j] = values[j * n + i] = NaN;
+    return { size: n, values };
+  }
+
+  it('recovers points in the plane from 45 % of their pairwise distances, up to rotation and translation', () => {
+    const gaps = withGaps(0.45, 7);
+    const blanks = Array.from(gaps.values).filter((v) => Number.isNaN(v)).length / 2;
+    expect(blanks).toBeGreaterThan(25);
+    const fit = smacof(gaps, 2, { tolerance: 1e-16, maxIterations: 5000 });
+    expect(fit.pairsUsed).toBe((14 * 13) / 2 - blanks);
+    expect(fit.stress).toBeLessThan(1e-6);
+    const aligned = procrustes(points, fit.coordinates);
+    // The recovered map matches the true points in shape and size (scale 1), the blank pairs included.
+    expect(aligned.scale).toBeCloseTo(1, 5);
+    expect(aligned.standardizedResidual).toBeLessThan(1e-8);
+    const back = distances(fit.coordinates);
+    for (let c = 0; c < full.values.length; c++) expect(back.values[c]).toBeCloseTo(full.values[c]!, 4);
+  });
+
+  it('never raises the stress, and improves on the classical map of noisy complete data', () => {
+    const noise = seededRandom(11);
+    const n = full.size;
+    const noisy = Float64Array.from(full.values);
+    for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) noisy[i * n + j] = noisy[j * n + i] = full.values[i * n + j]! * (1 + 0.2 * (noise() - 0.5));
+    const fit = smacof({ size: n, values: noisy }, 2);
+    for (let k = 1; k < fit.stressHistory.length; k++) expect(fit.stressHistory[k]!).toBeLessThanOrEqual(fit.stressHistory[k - 1]!);
+    expect(fit.converged).toBe(true);
+    // The start is the classical map, so the result can only be as good or better.
+    const classical = classicalMds({ size: n, values: noisy }, 2).coordinates;
+    const stressOf = (config: readonly (readonly number[])[]): number => {
+      const d = distances(config);
+      let num = 0, den = 0;
+      for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) {
+        num += (noisy[i * n + j]! - d.values[i * n + j]!) ** 2;
+        den += noisy[i * n + j]! ** 2;
+      }
+      return Math.sqrt(num / den);
+    };
+    expect(fit.stress).toBeCloseTo(stressOf(fit.coordinates), 10);
+    expect(fit.stress).toBeLessThan(stressOf(classical));
+    expect(fit.stress).toBeGreaterThan(0.01);
+  });
+
+  it('refuses rated pairs that leave a stimulus unlinked, and bad options', () => {
+    const n = 4;
+    const values = new Float64Array(n * n).fill(NaN);
+    for (let i = 0; i < n; i++) values[i * n + i] = 0;
+    // 0–1 and 2–3 rated, nothing between the two pairs.
+    values[1] = values[4] = 1;
+    values[2 * n + 3] = values[3 * n + 2] = 1;
+    expect(() => smacof({ size: n, values }, 2)).toThrow(/do not link every stimulus/);
+    expect(() => smacof(full, 14)).toThrow(StatsError);
+    expect(() => smacof({ size: 3, values: Float64Array.from([0, -1, 1, -1, 0, 1, 1, 1, 0]) }, 2)).toThrow(/finite and ≥ 0/);
   });
 });
 

@@ -150,35 +150,46 @@ export default async function StudySimilarityPage({ params }: { params: Promise<
 
         <section aria-labelledby="mds-heading" className="space-y-4">
           <h2 id="mds-heading" className="text-lg font-semibold">
-            Classical MDS map
+            MDS map
           </h2>
           {v.mds && map ? (
             <div className="grid gap-8 lg:grid-cols-[auto_1fr]">
               <div className="[&_svg]:h-auto [&_svg]:max-w-full" data-testid="mds-map" dangerouslySetInnerHTML={{ __html: map }} />
               <div className="space-y-3 text-sm">
-                <p>
-                  Torgerson scaling of the perceptual RDM to two dimensions, rotated, reflected, scaled and shifted onto the designed positions (Procrustes): scale{' '}
-                  <span className="font-mono">{num(v.mds.procrustes.scale)}</span>, residual sum of squares <span className="font-mono" data-testid="procrustes-residual">{num(v.mds.procrustes.residual, 4)}</span> (
-                  <span className="font-mono">{num(v.mds.procrustes.standardizedResidual)}</span> of the design&apos;s spread). The two dimensions carry{' '}
-                  <span className="font-mono">{num(100 * v.mds.explained, 1)} %</span> of Σ|λ|.
-                </p>
-                <table className="tabular text-sm" data-testid="eigenvalues">
-                  <caption className="mb-1 text-left text-graphite-soft">Every eigenvalue, largest first</caption>
-                  <tbody>
-                    <tr>
-                      {v.mds.eigenvalues.map((l, i) => (
-                        <td key={i} className={`border-[0.5px] border-rule px-1.5 py-0.5 font-mono ${l < 0 ? 'text-danger' : ''}`}>
-                          {l.toFixed(3)}
-                        </td>
-                      ))}
-                    </tr>
-                  </tbody>
-                </table>
-                <p className="max-w-xl text-graphite-soft" data-testid="negative-note">
-                  {v.mds.negativeEigenvalues > 0
-                    ? `${v.mds.negativeEigenvalues} eigenvalues are negative: no arrangement of points in any number of dimensions reproduces these dissimilarities exactly (they are not Euclidean distances). Small negative values are usual with rating noise; large ones, compared with the first two, mean the map leaves much of the data out.`
-                    : 'No eigenvalue is negative: the dissimilarities behave like Euclidean distances.'}
-                </p>
+                {v.mds.method === 'classical' ? (
+                  <>
+                    <p data-testid="mds-method">
+                      Classical (Torgerson) scaling of the perceptual RDM to two dimensions, rotated, reflected, scaled and shifted onto the designed positions (Procrustes): scale{' '}
+                      <span className="font-mono">{num(v.mds.procrustes.scale)}</span>, residual sum of squares <span className="font-mono" data-testid="procrustes-residual">{num(v.mds.procrustes.residual, 4)}</span> (
+                      <span className="font-mono">{num(v.mds.procrustes.standardizedResidual)}</span> of the design&apos;s spread). The two dimensions carry{' '}
+                      <span className="font-mono">{num(100 * (v.mds.explained ?? 0), 1)} %</span> of Σ|λ|.
+                    </p>
+                    <table className="tabular text-sm" data-testid="eigenvalues">
+                      <caption className="mb-1 text-left text-graphite-soft">Every eigenvalue, largest first</caption>
+                      <tbody>
+                        <tr>
+                          {v.mds.eigenvalues.map((l, i) => (
+                            <td key={i} className={`border-[0.5px] border-rule px-1.5 py-0.5 font-mono ${l < 0 ? 'text-danger' : ''}`}>
+                              {l.toFixed(3)}
+                            </td>
+                          ))}
+                        </tr>
+                      </tbody>
+                    </table>
+                    <p className="max-w-xl text-graphite-soft" data-testid="negative-note">
+                      {v.mds.negativeEigenvalues > 0
+                        ? `${v.mds.negativeEigenvalues} eigenvalues are negative: no arrangement of points in any number of dimensions reproduces these dissimilarities exactly (they are not Euclidean distances). Small negative values are usual with rating noise; large ones, compared with the first two, mean the map leaves much of the data out.`
+                        : 'No eigenvalue is negative: the dissimilarities behave like Euclidean distances.'}
+                    </p>
+                  </>
+                ) : (
+                  <p data-testid="mds-method">
+                    {v.mds.unratedPairs} pairs have no rating, so classical scaling cannot be used. This map is metric MDS by majorisation (SMACOF) over the rated pairs only, started from the classical map of shortest paths between them, after{' '}
+                    <span className="font-mono">{v.mds.iterations}</span> steps: stress-1 <span className="font-mono" data-testid="mds-stress">{num(v.mds.stress ?? 0, 3)}</span> (0 is a perfect fit). It is rotated, reflected, scaled and shifted onto the designed positions (Procrustes): scale{' '}
+                    <span className="font-mono">{num(v.mds.procrustes.scale)}</span>, residual sum of squares <span className="font-mono" data-testid="procrustes-residual">{num(v.mds.procrustes.residual, 4)}</span> (
+                    <span className="font-mono">{num(v.mds.procrustes.standardizedResidual)}</span> of the design&apos;s spread). Pairs rated by few people weigh as much as the others; where many are missing, read the map with care.
+                  </p>
+                )}
               </div>
             </div>
           ) : (
