@@ -67,8 +67,8 @@ function checked<T>(work: () => T): T {
  * Builds a stimulus pack from plain data, deterministically: the same input gives the same manifest and the same
  * zip bytes. Pipeline: check the input (`checkPackInput`, `resolveRender`) → generate the layout stimuli and the
  * boundaries' prototypes (`packStimuli`) → synthesise and validate every outline at `render.samples` points →
- * one frame for all (`frameStimuli`) → both SVGs per stimulus (`stimulusSvgPair`) → hand every pixel-unit SVG
- * to `backends.renderPng` at once → hand out the pure heavy work as `PackJob`s to `backends.runJob` (contour and
+ * one frame for all (`frameStimuli`) → both SVGs per stimulus (`stimulusSvgPair`), each pixel-unit SVG handed
+ * to `backends.renderPng` as soon as it is made → hand out the pure heavy work as `PackJob`s to `backends.runJob` (contour and
  * silhouette RDM rows of the layout stimuli, perimeters; default: run here) → meanwhile categories and signed
  * distances (`classifyStimuli`), areas, drawn sizes and the design RDM here → the RDM tables as jobs → metrics,
  * manifest, tables, README, schema, SHA256SUMS. Every file is held once; the zip is streamed by `writeZip`.
@@ -114,31 +114,25 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
   });
   progress?.('synthesize', 1);
 
-  // Phase 3: SVGs; then every PNG handed to the back end before the RDMs, so they render meanwhile.
-  const pixelSvgs: string[] = [];
+  // Phase 3: SVGs, each PNG handed to the back end as soon as its SVG is made, so the renderers start at once and
+  // work on while the RDMs are computed; each PNG is hashed as it arrives.
+  let rendered = 0;
+  const pngFilesReady: Promise<PackFile>[] = [];
   const svgFiles = time('svg', () =>
     stimuli.map((s, i) => {
       const { physical, pixels } = stimulusSvgPair(contours[i]!, frame, render);
-      pixelSvgs.push(pixels);
+      const png = backends.renderPng({ id: s.id, svg: pixels, sizePx: frame.canvasPx, channels: render.pngChannels }).then((bytes) => {
+        rendered++;
+        progress?.('png', rendered / stimuli.length);
+        return hashed(`stimuli/png/${s.id}.png`, bytes, 'STORE');
+      });
+      // Awaited below; marked handled now, so a failed render while the rest runs is not an unhandled rejection.
+      png.catch(() => undefined);
+      pngFilesReady.push(png);
       return hashed(`stimuli/svg/${s.id}.svg`, encoder.encode(physical));
     }),
   );
   progress?.('svg', 1);
-  let rendered = 0;
-  const pngAll = Promise.all(
-    stimuli.map((s, i) =>
-      backends
-        .renderPng({ id: s.id, svg: pixelSvgs[i]!, sizePx: frame.canvasPx, channels: render.pngChannels })
-        .then((bytes) => {
-          rendered++;
-          progress?.('png', rendered / stimuli.length);
-          return bytes;
-        }),
-    ),
-  );
-
-  // Awaited below; marked handled now, so a failed render while the jobs run is not an unhandled rejection.
-  pngAll.catch(() => undefined);
 
   // Phase 4: the heavy pure work as jobs, handed out after the PNGs so they run meanwhile: the contour and
   // silhouette RDMs of the layout stimuli in blocks of rows, and the perimeters.
@@ -177,15 +171,13 @@ export async function buildPack(input: PackInput, backends: PackBackends): Promi
 
   // Phase 7: the PNGs.
   const pngWait = performance.now();
-  let pngBytes: Uint8Array[];
+  let pngFiles: PackFile[];
   try {
-    pngBytes = await pngAll;
+    pngFiles = await Promise.all(pngFilesReady);
   } catch (error) {
     throw new PackError('render-failed', `A PNG could not be rendered: ${error instanceof Error ? error.message : String(error)}`, [], { cause: error });
   }
   timings.png = performance.now() - pngWait;
-  const pngFiles = stimuli.map((s, i) => hashed(`stimuli/png/${s.id}.png`, pngBytes[i]!, 'STORE'));
-  pngBytes = [];
 
   // Phase 8: manifest, tables, README, checksums.
   const built = time('tables', () => {
