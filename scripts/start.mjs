@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { startMailCatcher } from './lib/mail.mjs';
 import { startS3Fake } from './lib/s3.mjs';
 import { ensurePostgres } from './lib/postgres.mjs';
-import { ROOT, bin, ensureDependencies, runOrThrow, runTs, startService } from './lib/run.mjs';
+import { ROOT, SERVE_ARGS, bin, ensureDependencies, runOrThrow, runTs, startService } from './lib/run.mjs';
 
 import demo from '../db/demo-users.json' with { type: 'json' };
 
@@ -67,10 +67,12 @@ try {
     log('start', 'building the app (next build)…');
     await runOrThrow(bin('next'), ['build'], { env: { ...env, NODE_ENV: 'production' } });
   }
-  const web = startService('web', bin('next'), [isDev ? 'dev' : 'start', '-H', host, '-p', String(port)], {
-    ...env,
-    NODE_ENV: isDev ? 'development' : 'production',
-  });
+  // Production: Next behind server/serve.ts, which serves the participants' answers itself (the fast path) and hands
+  // every other request to Next, on the one origin. Dev mode keeps plain `next dev` (the route file answers there).
+  const webEnv = { ...env, NODE_ENV: isDev ? 'development' : 'production' };
+  const web = isDev
+    ? startService('web', bin('next'), ['dev', '-H', host, '-p', String(port)], webEnv)
+    : startService('web', process.execPath, [...SERVE_ARGS, '--hostname', host, '--port', String(port)], webEnv);
   cleanups.push(() => web.kill('SIGTERM'));
   web.on('exit', (code) => {
     if (!stopping) {

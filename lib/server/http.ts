@@ -81,6 +81,9 @@ export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z
 export type AnyRouteSpec = RouteSpec<AnyObject, AnyObject, z.ZodType, z.ZodType>;
 
 const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
+
+/** The largest body a route takes, in bytes. */
+export const maxBodyBytesOf = (route: AnyRouteSpec): number => route.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES;
 const EMPTY_OBJECT = z.object({});
 
 const registry = new Map<string, AnyRouteSpec>();
@@ -255,7 +258,7 @@ export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.
       const url = new URL(request.url);
       const query = parseWith(route.query ?? EMPTY_OBJECT, Object.fromEntries(url.searchParams), 'query');
       const hasBody = route.method !== 'GET' && route.method !== 'DELETE';
-      const maxBytes = route.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES;
+      const maxBytes = maxBodyBytesOf(route);
       const isBinary = hasBody && route.binaryBody !== undefined && route.binaryBody.contentTypes.includes(contentTypeOf(request));
       const bytes = isBinary ? await readBinaryBody(request, route.binaryBody!.maxBytes) : undefined;
       const text = route.textBody && hasBody && !isBinary ? await readTextBody(request, maxBytes, route.textBody.contentTypes) : '';
