@@ -8,6 +8,7 @@
 // --drain-seconds 1200 (how long the outboxes may take to empty before the count is checked).
 // The database is DATABASE_URL, else the local cluster on EPICYCLE_PG_PORT (default 54329).
 import { spawn, type ChildProcess } from 'node:child_process';
+import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { createDb, type Db } from '@/db/client';
 import { DEMO_LAB, DEMO_STUDY } from '@/db/seed';
@@ -26,6 +27,8 @@ const { values: args } = parseArgs({
     search: { type: 'boolean', default: false },
     'kill-web': { type: 'boolean', default: false },
     'web-port': { type: 'string', default: '3301' },
+    // The web server's process id: its CPU time per request is reported too (Linux, from /proc).
+    'server-pid': { type: 'string' },
     'p99-target-ms': { type: 'string', default: '100' },
     // A slow (or shared) machine queues answers in the outboxes; the count check waits for them this long.
     'drain-seconds': { type: 'string', default: '1200' },
@@ -83,6 +86,27 @@ function startWeb(port: number): ChildProcess {
   return child;
 }
 
+/** User + system CPU milliseconds a process has used so far (Linux /proc; undefined elsewhere). */
+function cpuMsOf(pid: number | undefined): number | undefined {
+  if (pid === undefined) return undefined;
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').replace(/^.*\) /s, '').split(' ');
+    // utime and stime are fields 14 and 15 of the line, 12 and 13 after the command name; in clock ticks (100/s).
+    return (Number(fields[11]) + Number(fields[12])) * 10;
+  } catch {
+    return undefined;
+  }
+}
+
+/** Runs the load and adds the web server's CPU per request when its pid is known. */
+async function measured(options: Parameters<typeof runParticipantLoad>[0], pid: number | undefined) {
+  const before = cpuMsOf(pid);
+  const report = await runParticipantLoad(options);
+  const after = cpuMsOf(pid);
+  const serverCpuMsPerRequest = before !== undefined && after !== undefined ? Math.round(((after - before) / Math.max(1, report.requests)) * 100) / 100 : undefined;
+  return { ...report, serverCpuMsPerRequest };
+}
+
 const db = createDb(process.env.DATABASE_URL, 2);
 try {
   const token = await ensureLoadStudy(db);
@@ -91,20 +115,21 @@ try {
   const intervalMs = Number(args['interval-ms']);
   const target = Number(args['p99-target-ms']);
   const drainTimeoutMs = Number(args['drain-seconds']) * 1000;
+  const serverPid = args['server-pid'] ? Number(args['server-pid']) : undefined;
   const baseUrl = args.url ?? process.env.APP_URL ?? `http://127.0.0.1:${process.env.PORT ?? 3000}`;
   const check = async (report: LoadReport) => {
     const stored = await countSessionTrials(db, report.sessionCodes);
     const expected = report.sessions * trials;
     return { expected, ...stored, lost: expected - stored.distinctTrials, duplicated: stored.rows - stored.distinctTrials, ok: stored.rows === expected && stored.distinctTrials === expected && stored.sessionCounters === expected };
   };
-  const strip = ({ sessionCodes: _codes, ...rest }: LoadReport) => rest;
+  const strip = <T extends LoadReport>({ sessionCodes: _codes, ...rest }: T) => rest;
 
   if (args.search) {
     // Bisection on the arrival rate (100 participants; the interval shrinks as the rate grows), ~10 s per probe.
     const probe = async (rate: number) => {
       const interval = (sessions * 1000) / rate;
       const perSession = Math.max(10, Math.round((10_000 / interval)));
-      const report = await runParticipantLoad({ baseUrl, token, sessions, trialsPerSession: perSession, intervalMs: interval, drainTimeoutMs });
+      const report = await measured({ baseUrl, token, sessions, trialsPerSession: perSession, intervalMs: interval, drainTimeoutMs }, serverPid);
       const stored = await countSessionTrials(db, report.sessionCodes);
       log(`rate ${rate}/s: p50 ${report.latencyMs.p50} ms, p99 ${report.latencyMs.p99} ms, throughput ${report.throughputPerSecond}/s, stored ${stored.distinctTrials}/${report.trialsSent}`);
       return { rate, ...strip(report), stored: stored.distinctTrials, meets: report.latencyMs.p99 < target && report.trialsPending === 0 && stored.distinctTrials === report.trialsSent };
@@ -169,7 +194,7 @@ try {
     if (!result.ok || report.trialsPending > 0) process.exitCode = 1;
   } else {
     await waitForHealth(baseUrl, 10_000);
-    const report = await runParticipantLoad({ baseUrl, token, sessions, trialsPerSession: trials, intervalMs, drainTimeoutMs });
+    const report = await measured({ baseUrl, token, sessions, trialsPerSession: trials, intervalMs, drainTimeoutMs }, serverPid);
     const result = await check(report);
     console.log(JSON.stringify({ mode: 'steady', ...strip(report), p99UnderTarget: report.latencyMs.p99 < target, database: result }, null, 2));
     if (!result.ok || report.trialsPending > 0) process.exitCode = 1;
