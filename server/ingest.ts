@@ -1,7 +1,7 @@
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { API_HEADERS, siteHeaders } from '@/lib/http-headers.mjs';
 import { submitResponseRoute } from '@/lib/server/api/participant-sessions';
-import { maxBodyBytesOf, toHandler, type AnyRouteSpec } from '@/lib/server/http';
+import { maxBodyBytesOf, runRoute, type AnyRouteSpec, type RouteRequest } from '@/lib/server/http';
 
 /**
  * The answer fast path: the few API routes that a running study calls hundreds of times a second, served by the
@@ -20,7 +20,7 @@ interface CompiledRoute {
   pattern: RegExp;
   names: string[];
   maxBytes: number;
-  handle: ReturnType<typeof toHandler>;
+  spec: AnyRouteSpec;
 }
 
 /** Returns a function that serves a matching request (and says true), or leaves it alone (false). */
@@ -31,7 +31,7 @@ export function createFastPath(options: { isProduction: boolean; routes?: readon
       names.push(name);
       return '([^/]+)';
     });
-    return { method: route.method, pattern: new RegExp(`^${source}$`), names, maxBytes: maxBodyBytesOf(route), handle: toHandler(route) };
+    return { method: route.method, pattern: new RegExp(`^${source}$`), names, maxBytes: maxBodyBytesOf(route), spec: route };
   });
   const fixedHeaders = [...siteHeaders(options.isProduction), ...API_HEADERS].map(({ key, value }) => [key.toLowerCase(), value] as const);
 
@@ -56,25 +56,49 @@ export function createFastPath(options: { isProduction: boolean; routes?: readon
   };
 }
 
+/** The headers of a Node request as the route runner reads them (Node already lower-cases and joins them). */
+const headersOf = (req: IncomingMessage) => ({
+  get(name: string): string | null {
+    const v = req.headers[name.toLowerCase()];
+    return v === undefined ? null : Array.isArray(v) ? v.join(', ') : v;
+  },
+});
+
 async function serve(route: CompiledRoute, params: Record<string, string>, req: IncomingMessage, res: ServerResponse, fixedHeaders: readonly (readonly [string, string])[]) {
   try {
-    const headers = new Headers();
-    const raw = req.rawHeaders;
-    for (let i = 0; i < raw.length; i += 2) headers.append(raw[i]!, raw[i + 1]!);
+    const headers = headersOf(req);
+    const url = new URL(`http://${req.headers.host ?? 'localhost'}${req.url}`);
     // The body is read here up to one byte past the route's cap (a body declared larger is not read at all), and the
-    // route's own reader then measures it against the cap, so a request too large gets the route's own 413.
+    // route runner then measures it against the cap, so a request too large gets the route's own 413.
     const body = Number(req.headers['content-length'] ?? '0') > route.maxBytes ? null : await readUpTo(req, route.maxBytes + 1);
-    const request = new Request(`http://${req.headers.host ?? 'localhost'}${req.url}`, { method: req.method, headers, body });
-    const response = await route.handle(request, { params: Promise.resolve(params) });
+    const request: RouteRequest = {
+      method: req.method ?? 'GET',
+      url,
+      headers,
+      body,
+      request: () => {
+        const h = new Headers();
+        for (let i = 0; i < req.rawHeaders.length; i += 2) h.append(req.rawHeaders[i]!, req.rawHeaders[i + 1]!);
+        return new Request(url, { method: req.method, headers: h, body: body ? new Uint8Array(body) : null });
+      },
+    };
+    const answer = await runRoute(route.spec, request, Promise.resolve(params));
     for (const [key, value] of fixedHeaders) res.setHeader(key, value);
-    response.headers.forEach((value, key) => res.setHeader(key, value));
-    res.statusCode = response.status;
-    const bytes = Buffer.from(await response.arrayBuffer());
+    let bytes: Buffer | string | null;
+    if (answer instanceof Response) {
+      answer.headers.forEach((value, key) => res.setHeader(key, value));
+      res.statusCode = answer.status;
+      bytes = Buffer.from(await answer.arrayBuffer());
+    } else {
+      for (const key in answer.headers) res.setHeader(key, answer.headers[key]!);
+      res.statusCode = answer.status;
+      bytes = answer.body;
+    }
     // A body left unread (refused as too large) would be read as the next request: close the connection instead.
     if (!req.complete) res.setHeader('connection', 'close');
-    res.end(bytes);
+    res.end(bytes ?? undefined);
   } catch (error) {
-    // Only a broken connection gets here (the route answers every error of its own as problem details).
+    // Only a broken connection gets here (the route runner answers every error of its own as problem details).
     if (!res.headersSent) res.statusCode = 500;
     res.destroy(error instanceof Error ? error : undefined);
   }

@@ -16,7 +16,7 @@ const { values: args } = parseArgs({
 });
 const hostname = args.hostname!;
 const port = Number(args.port);
-process.env.NODE_ENV = 'production';
+(process.env as Record<string, string>).NODE_ENV = 'production';
 
 // A bad configuration stops the server here with the variables named, before Next loads.
 getEnv();

@@ -15,7 +15,7 @@ import { makeEdition } from '../support/editions';
 // same status and the same body. The Next side streams the request body into the route file's POST, as Next does.
 const CATEGORISATION = {
   directionsDeg: [0],
-  steps: 3,
+  steps: 7,
   extent: 0.8,
   repetitions: 1,
   blocking: 'interleaved',
@@ -151,7 +151,7 @@ describe('the answer fast path answers as the Next route does', () => {
       { path: pathOf(s.sessionCode), body: '', status: 400 },
       { path: pathOf('ABCDE-FGHJK-MNPQR-STVWX'), body: valid, status: 404 },
       { path: pathOf('not a code'.replaceAll(' ', '%20')), body: valid, status: 400 },
-      { path: pathOf(s.sessionCode, 'x'.repeat(43)), body: valid, status: 0 },
+      { path: pathOf(s.sessionCode, 'not-a-token!'), body: valid, status: 400 },
     ];
     for (const c of cases) {
       const pair = [await post(urlOf(fast), c.path, c.body, c.headers), await post(urlOf(routeFile), c.path, c.body, c.headers)] as const;
@@ -159,6 +159,11 @@ describe('the answer fast path answers as the Next route does', () => {
       expect(pair[0].headers.get('content-type') ?? '', c.path).toMatch(/json/);
       expectSame(...pair);
     }
+    // Another well-formed token: the session code is the participant's credential, and both answer alike.
+    const [a, b] = [await start(), await start()];
+    const other = 'x'.repeat(token.length);
+    const pair = [await post(urlOf(fast), pathOf(a.sessionCode, other), JSON.stringify(answerOf(a.trials[0]!))), await post(urlOf(routeFile), pathOf(b.sessionCode, other), JSON.stringify(answerOf(b.trials[0]!)))] as const;
+    expectSame(...pair, [a.sessionCode, b.sessionCode]);
   });
 
   it('an oversized body, declared or streamed, is refused with 413 and nothing is stored', async () => {
