@@ -98,14 +98,8 @@ function cpuMsOf(pid: number | undefined): number | undefined {
   }
 }
 
-/** Runs the load and adds the web server's CPU per request when its pid is known. */
-async function measured(options: Parameters<typeof runParticipantLoad>[0], pid: number | undefined) {
-  const before = cpuMsOf(pid);
-  const report = await runParticipantLoad(options);
-  const after = cpuMsOf(pid);
-  const serverCpuMsPerRequest = before !== undefined && after !== undefined ? Math.round(((after - before) / Math.max(1, report.requests)) * 100) / 100 : undefined;
-  return { ...report, serverCpuMsPerRequest };
-}
+/** Runs the load, with the web server's CPU per request when its pid is known. */
+const measured = (options: Parameters<typeof runParticipantLoad>[0], pid: number | undefined) => runParticipantLoad({ ...options, serverCpuMs: () => cpuMsOf(pid) });
 
 const db = createDb(process.env.DATABASE_URL, 2);
 try {

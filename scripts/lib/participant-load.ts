@@ -16,6 +16,8 @@ export interface LoadOptions {
   intervalMs: number;
   /** Longest wait for the outboxes to empty after the last answer. */
   drainTimeoutMs?: number;
+  /** The web server's CPU milliseconds so far, when known: read as the answers start and after they drain. */
+  serverCpuMs?: () => number | undefined;
   /** Called once a second with the progress so far (for the fault scripts). */
   onTick?: (progress: { added: number; confirmed: number; pending: number; failedRequests: number }) => void;
 }
@@ -41,6 +43,8 @@ export interface LoadReport {
   latencyMs: { p50: number; p99: number; max: number; mean: number };
   /** CPU time the load generator itself spent per request (it shares the machine with the server). */
   clientCpuMsPerRequest: number;
+  /** CPU time the web server spent per answer request, from the first answer on (sessions started before), when known. */
+  serverCpuMsPerRequest?: number;
   sessionCodes: string[];
 }
 
@@ -204,6 +208,7 @@ export async function runParticipantLoad(options: LoadOptions): Promise<LoadRepo
 
   const t0 = performance.now();
   const cpu0 = process.cpuUsage();
+  const serverCpu0 = options.serverCpuMs?.();
   const ticker = options.onTick
     ? setInterval(() => options.onTick!({ added, confirmed, pending: queues.reduce((sum, q) => sum + q.pending, 0), failedRequests }), 1000)
     : null;
@@ -231,6 +236,7 @@ export async function runParticipantLoad(options: LoadOptions): Promise<LoadRepo
   }
   const durationSeconds = (performance.now() - t0) / 1000;
   const cpu = process.cpuUsage(cpu0);
+  const serverCpu1 = options.serverCpuMs?.();
   const sorted = [...latencies].sort((a, b) => a - b);
   const round = (x: number) => Math.round(x * 10) / 10;
   return {
@@ -247,6 +253,7 @@ export async function runParticipantLoad(options: LoadOptions): Promise<LoadRepo
     throughputPerSecond: round(confirmed / durationSeconds),
     latencyMs: { p50: round(quantile(sorted, 0.5)), p99: round(quantile(sorted, 0.99)), max: round(sorted.at(-1) ?? Number.NaN), mean: round(sorted.reduce((a, b) => a + b, 0) / Math.max(1, sorted.length)) },
     clientCpuMsPerRequest: Math.round(((cpu.user + cpu.system) / 1000 / Math.max(1, requests)) * 100) / 100,
+    ...(serverCpu0 !== undefined && serverCpu1 !== undefined ? { serverCpuMsPerRequest: Math.round(((serverCpu1 - serverCpu0) / Math.max(1, requests)) * 100) / 100 } : {}),
     sessionCodes: started.map((s) => s.sessionCode),
   };
 }
