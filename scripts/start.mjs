@@ -13,6 +13,8 @@ const isDev = process.argv.includes('--dev');
 // `--no-build` serves the build already in .next (e.g. a second web server beside the first, or a checkout whose
 // node_modules is a symlink, built by hand with `next build --webpack`).
 const skipBuild = process.argv.includes('--no-build');
+// `--no-worker` starts no pack worker (e.g. for `npm run load -- --kill-worker`, which runs its own).
+const noWorker = process.argv.includes('--no-worker');
 const host = process.env.HOST ?? '127.0.0.1';
 const port = Number(process.env.PORT ?? 3000);
 const pgPort = Number(process.env.EPICYCLE_PG_PORT ?? 54329);
@@ -82,11 +84,13 @@ try {
   });
 
   // One pack worker beside the web server; more can run anywhere with the same database and object store.
-  const worker = startService('worker', process.execPath, ['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], env);
-  cleanups.push(() => worker.kill('SIGTERM'));
-  worker.on('exit', (code) => {
-    if (!stopping) log('start', `pack worker exited (${code}); packs wait until a worker runs (npm run worker)`);
-  });
+  if (!noWorker) {
+    const worker = startService('worker', process.execPath, ['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], env);
+    cleanups.push(() => worker.kill('SIGTERM'));
+    worker.on('exit', (code) => {
+      if (!stopping) log('start', `pack worker exited (${code}); packs wait until a worker runs (npm run worker)`);
+    });
+  }
 
   log('start', '');
   log('start', `Epicycle is starting at ${appUrl}`);
