@@ -51,7 +51,7 @@ test('answers on the fast path carry the headers Next gives the API, and the rou
   const resent = await participant.post(path, { data: answer });
   expect(await resent.json()).toEqual({ stored: 1, planned: session.trials.length, isComplete: false, isNew: false });
 
-  const malformed = await participant.post(path, { data: '{"trialIndex": ', headers: { 'content-type': 'application/json' } });
+  const malformed = await participant.post(path, { data: Buffer.from('{"trialIndex": '), headers: { 'content-type': 'application/json' } });
   expect(malformed.status()).toBe(400);
   expect(malformed.headers()['content-type']).toBe('application/problem+json');
   expect(await malformed.json()).toMatchObject({ status: 400, code: 'validation:request', detail: 'The body is not valid JSON.', instance: path });
