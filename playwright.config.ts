@@ -45,7 +45,8 @@ export default defineConfig({
   ],
   webServer: [
     {
-      command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
+      // The production web server as `npm start` runs it: Next plus the participant-answer fast path (server/serve.ts).
+      command: `node --conditions=react-server --import tsx server/serve.ts --hostname 127.0.0.1 --port ${port}`,
       url: `${baseURL}/api/health`,
       reuseExistingServer: !process.env.CI,
       timeout: 120_000,

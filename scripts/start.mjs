@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { startMailCatcher } from './lib/mail.mjs';
 import { startS3Fake } from './lib/s3.mjs';
 import { ensurePostgres } from './lib/postgres.mjs';
-import { ROOT, bin, ensureDependencies, runOrThrow, runTs, startService } from './lib/run.mjs';
+import { ROOT, SERVE_ARGS, bin, ensureDependencies, runOrThrow, runTs, startService } from './lib/run.mjs';
 
 import demo from '../db/demo-users.json' with { type: 'json' };
 
@@ -13,6 +13,8 @@ const isDev = process.argv.includes('--dev');
 // `--no-build` serves the build already in .next (e.g. a second web server beside the first, or a checkout whose
 // node_modules is a symlink, built by hand with `next build --webpack`).
 const skipBuild = process.argv.includes('--no-build');
+// `--no-worker` starts no pack worker (e.g. for `npm run load -- --kill-worker`, which runs its own).
+const noWorker = process.argv.includes('--no-worker');
 const host = process.env.HOST ?? '127.0.0.1';
 const port = Number(process.env.PORT ?? 3000);
 const pgPort = Number(process.env.EPICYCLE_PG_PORT ?? 54329);
@@ -67,10 +69,12 @@ try {
     log('start', 'building the app (next build)…');
     await runOrThrow(bin('next'), ['build'], { env: { ...env, NODE_ENV: 'production' } });
   }
-  const web = startService('web', bin('next'), [isDev ? 'dev' : 'start', '-H', host, '-p', String(port)], {
-    ...env,
-    NODE_ENV: isDev ? 'development' : 'production',
-  });
+  // Production: Next behind server/serve.ts, which serves the participants' answers itself (the fast path) and hands
+  // every other request to Next, on the one origin. Dev mode keeps plain `next dev` (the route file answers there).
+  const webEnv = { ...env, NODE_ENV: isDev ? 'development' : 'production' };
+  const web = isDev
+    ? startService('web', bin('next'), ['dev', '-H', host, '-p', String(port)], webEnv)
+    : startService('web', process.execPath, [...SERVE_ARGS, '--hostname', host, '--port', String(port)], webEnv);
   cleanups.push(() => web.kill('SIGTERM'));
   web.on('exit', (code) => {
     if (!stopping) {
@@ -80,11 +84,13 @@ try {
   });
 
   // One pack worker beside the web server; more can run anywhere with the same database and object store.
-  const worker = startService('worker', process.execPath, ['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], env);
-  cleanups.push(() => worker.kill('SIGTERM'));
-  worker.on('exit', (code) => {
-    if (!stopping) log('start', `pack worker exited (${code}); packs wait until a worker runs (npm run worker)`);
-  });
+  if (!noWorker) {
+    const worker = startService('worker', process.execPath, ['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], env);
+    cleanups.push(() => worker.kill('SIGTERM'));
+    worker.on('exit', (code) => {
+      if (!stopping) log('start', `pack worker exited (${code}); packs wait until a worker runs (npm run worker)`);
+    });
+  }
 
   log('start', '');
   log('start', `Epicycle is starting at ${appUrl}`);

@@ -81,6 +81,9 @@ export interface RouteSpec<P extends AnyObject, Q extends AnyObject, B extends z
 export type AnyRouteSpec = RouteSpec<AnyObject, AnyObject, z.ZodType, z.ZodType>;
 
 const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
+
+/** The largest body a route takes, in bytes. */
+export const maxBodyBytesOf = (route: AnyRouteSpec): number => route.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES;
 const EMPTY_OBJECT = z.object({});
 
 const registry = new Map<string, AnyRouteSpec>();
@@ -136,7 +139,24 @@ function parseWith<S extends z.ZodType>(schema: S, value: unknown, part: string)
   return result.data;
 }
 
-async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
+/**
+ * A request as the route runner reads it, whatever carried it: Next's web Request (`toHandler`) or the answer fast
+ * path's Node request (server/ingest.ts). The body is the web stream, or bytes the carrier already read, which it
+ * must stop reading one byte past the route's cap (`maxBodyBytesOf`) so that the cap below is the one that decides.
+ */
+export interface RouteRequest {
+  method: string;
+  url: URL;
+  headers: { get(name: string): string | null };
+  body: ReadableStream<Uint8Array> | Uint8Array | null;
+  /** The web Request, for handlers that read it themselves (made on first use). */
+  request: () => Request;
+}
+
+/** What a route answers: a JSON (or problem) body with its status and headers, or a ready Response (downloads). */
+export type RouteAnswer = { status: number; headers: Record<string, string>; body: string | null } | Response;
+
+async function readJsonBody(request: RouteRequest, maxBytes: number): Promise<unknown> {
   const declared = Number(request.headers.get('content-length') ?? '0');
   if (declared > maxBytes) throw new AppError('too_large:request', `The request body is over ${maxBytes} bytes.`);
   const text = await readTextCapped(request, maxBytes);
@@ -152,8 +172,8 @@ async function readJsonBody(request: Request, maxBytes: number): Promise<unknown
   }
 }
 
-async function readTextBody(request: Request, maxBytes: number, contentTypes: readonly string[]): Promise<string> {
-  const type = (request.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
+async function readTextBody(request: RouteRequest, maxBytes: number, contentTypes: readonly string[]): Promise<string> {
+  const type = contentTypeOf(request);
   if (!contentTypes.includes(type)) {
     throw validationError('request', `Send the file as ${contentTypes.join(' or ')}.`, { file: [`Unsupported type ${type || '(none)'}`] });
   }
@@ -163,15 +183,15 @@ async function readTextBody(request: Request, maxBytes: number, contentTypes: re
 }
 
 /** Reads a request body as text, stopping with 413 as soon as it passes `maxBytes`. */
-export async function readTextCapped(request: Request, maxBytes: number): Promise<string> {
+async function readTextCapped(request: RouteRequest, maxBytes: number): Promise<string> {
   return new TextDecoder().decode(await readBytesCapped(request, maxBytes));
 }
 
-const contentTypeOf = (request: Request): string => (request.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
+const contentTypeOf = (request: RouteRequest): string => (request.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
 const mebibytes = (bytes: number): string => `${Math.round(bytes / (1024 * 1024))} MiB`;
 
 /** A file sent as raw bytes: refused early by its declared length, cut off at `maxBytes`, and checked complete. */
-async function readBinaryBody(request: Request, maxBytes: number): Promise<Uint8Array> {
+async function readBinaryBody(request: RouteRequest, maxBytes: number): Promise<Uint8Array> {
   const declared = Number(request.headers.get('content-length') ?? '0');
   const tooLarge = () => new AppError('too_large:request', `The file is over ${mebibytes(maxBytes)}.`, { fields: { file: ['Too large'] } });
   if (declared > maxBytes) throw tooLarge();
@@ -189,9 +209,15 @@ async function readBinaryBody(request: Request, maxBytes: number): Promise<Uint8
 }
 
 /** Reads a request body as bytes, stopping with 413 as soon as it passes `maxBytes`. */
-async function readBytesCapped(request: Request, maxBytes: number): Promise<Uint8Array> {
-  if (!request.body) return new Uint8Array(0);
-  const reader = request.body.getReader();
+async function readBytesCapped(request: RouteRequest, maxBytes: number): Promise<Uint8Array> {
+  const tooLarge = () => new AppError('too_large:request', `The request body is over ${maxBytes} bytes.`);
+  const source = request.body;
+  if (!source) return new Uint8Array(0);
+  if (source instanceof Uint8Array) {
+    if (source.byteLength > maxBytes) throw tooLarge();
+    return source;
+  }
+  const reader = source.getReader();
   const chunks: Uint8Array[] = [];
   let total = 0;
   for (;;) {
@@ -200,22 +226,29 @@ async function readBytesCapped(request: Request, maxBytes: number): Promise<Uint
     total += value.byteLength;
     if (total > maxBytes) {
       await reader.cancel();
-      throw new AppError('too_large:request', `The request body is over ${maxBytes} bytes.`);
+      throw tooLarge();
     }
     chunks.push(value);
   }
   return Buffer.concat(chunks);
 }
 
-/** A problem-details response for any thrown value; unknown errors are logged in full and answered generically. */
-export function problemResponse(error: unknown, instance?: string): Response {
+/** Problem details for any thrown value, as an answer; unknown errors are logged in full and answered generically. */
+export function problemAnswer(error: unknown, instance?: string): Exclude<RouteAnswer, Response> {
   const problem = toProblemDetails(error, instance);
   if (problem.status >= 500) logEvent('error', 'request failed', { error, instance });
-  const headers = new Headers({ 'content-type': PROBLEM_CONTENT_TYPE, 'cache-control': 'no-store' });
+  const headers: Record<string, string> = { 'content-type': PROBLEM_CONTENT_TYPE, 'cache-control': 'no-store' };
   if (error instanceof AppError && error.headers) {
-    for (const [k, v] of Object.entries(error.headers)) headers.set(k, v);
+    for (const [k, v] of Object.entries(error.headers)) headers[k.toLowerCase()] = v;
   }
-  return new Response(JSON.stringify(problem), { status: problem.status, headers });
+  return { status: problem.status, headers, body: JSON.stringify(problem) };
+}
+
+const toResponse = (answer: RouteAnswer): Response => (answer instanceof Response ? answer : new Response(answer.body, { status: answer.status, headers: answer.headers }));
+
+/** A problem-details response for any thrown value; unknown errors are logged in full and answered generically. */
+export function problemResponse(error: unknown, instance?: string): Response {
+  return toResponse(problemAnswer(error, instance));
 }
 
 /** Whether the request's If-None-Match names `etag` (or `*`); weak and strong forms compare alike. */
@@ -235,43 +268,64 @@ export function jsonWithEtag(request: Request, body: unknown, etag: string): Res
 
 type NextRouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
 
-/** The Next route handler for a registered route: parse → authenticate → call the service → map the result. */
+/** The Next route handler for a registered route: the route runner on Next's web Request. */
 export function toHandler<P extends AnyObject, Q extends AnyObject, B extends z.ZodType, R extends z.ZodType>(
   spec: RouteSpec<P, Q, B, R>,
 ) {
   const route = spec as unknown as AnyRouteSpec;
   return async function handle(request: Request, context?: NextRouteContext): Promise<Response> {
-    const instance = new URL(request.url).pathname;
-    try {
-      const rawParams = (await context?.params) ?? {};
-      const params = parseWith(route.params ?? EMPTY_OBJECT, rawParams, 'path');
-      // Who is asking is settled before the request is read further: a caller without the right gets 401/403
-      // (or 404 for another lab), never a hint about what a valid body looks like.
-      const principal = await getRequestPrincipal(request);
-      if (route.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
-      if (principal.kind === 'user') assertSameOrigin(request);
-      const actor = await actorFor(route.access, principal, params);
-
-      const url = new URL(request.url);
-      const query = parseWith(route.query ?? EMPTY_OBJECT, Object.fromEntries(url.searchParams), 'query');
-      const hasBody = route.method !== 'GET' && route.method !== 'DELETE';
-      const maxBytes = route.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES;
-      const isBinary = hasBody && route.binaryBody !== undefined && route.binaryBody.contentTypes.includes(contentTypeOf(request));
-      const bytes = isBinary ? await readBinaryBody(request, route.binaryBody!.maxBytes) : undefined;
-      const text = route.textBody && hasBody && !isBinary ? await readTextBody(request, maxBytes, route.textBody.contentTypes) : '';
-      const rawBody = hasBody && !route.textBody && !isBinary ? await readJsonBody(request, maxBytes) : undefined;
-      const body = route.body && !isBinary ? parseWith(route.body, rawBody ?? {}, 'body') : undefined;
-
-      const result = await route.handler({ params, query, body, principal, request, labActor: labActorGetter(actor, route.id), text, bytes });
-      if (result instanceof Response) return result;
-      const status = route.successStatus ?? 200;
-      if (status === 204) return new Response(null, { status });
-      const output = route.response.parse(result);
-      return Response.json(output, { status, headers: { 'cache-control': 'no-store' } });
-    } catch (error) {
-      return problemResponse(error, instance);
-    }
+    const routeRequest: RouteRequest = { method: request.method, url: new URL(request.url), headers: request.headers, body: request.body, request: () => request };
+    return toResponse(await runRoute(route, routeRequest, context?.params ?? Promise.resolve({})));
   };
+}
+
+/**
+ * Runs a registered route on a request: parse → authenticate → call the service → map the result. The one place
+ * a route's rules live; `toHandler` (Next) and the answer fast path (server/ingest.ts) only carry requests to it.
+ */
+export async function runRoute(route: AnyRouteSpec, request: RouteRequest, rawParamsOf: Promise<Record<string, string | string[] | undefined>>): Promise<RouteAnswer> {
+  const url = request.url;
+  const instance = url.pathname;
+  try {
+    const rawParams = (await rawParamsOf) ?? {};
+    const params = parseWith(route.params ?? EMPTY_OBJECT, rawParams, 'path');
+    // Who is asking is settled before the request is read further: a caller without the right gets 401/403
+    // (or 404 for another lab), never a hint about what a valid body looks like.
+    const principal = await getRequestPrincipal(request);
+    if (route.access.kind !== 'public' && principal.kind === 'anonymous') throw unauthenticated();
+    if (principal.kind === 'user') assertSameOrigin(request);
+    const actor = await actorFor(route.access, principal, params);
+
+    const query = parseWith(route.query ?? EMPTY_OBJECT, Object.fromEntries(url.searchParams), 'query');
+    const hasBody = route.method !== 'GET' && route.method !== 'DELETE';
+    const maxBytes = maxBodyBytesOf(route);
+    const isBinary = hasBody && route.binaryBody !== undefined && route.binaryBody.contentTypes.includes(contentTypeOf(request));
+    const bytes = isBinary ? await readBinaryBody(request, route.binaryBody!.maxBytes) : undefined;
+    const text = route.textBody && hasBody && !isBinary ? await readTextBody(request, maxBytes, route.textBody.contentTypes) : '';
+    const rawBody = hasBody && !route.textBody && !isBinary ? await readJsonBody(request, maxBytes) : undefined;
+    const body = route.body && !isBinary ? parseWith(route.body, rawBody ?? {}, 'body') : undefined;
+
+    const ctx: RouteContext<unknown, unknown, unknown> = {
+      params,
+      query,
+      body,
+      principal,
+      get request() {
+        return request.request();
+      },
+      labActor: labActorGetter(actor, route.id),
+      text,
+      bytes,
+    };
+    const result = await route.handler(ctx as Parameters<AnyRouteSpec['handler']>[0]);
+    if (result instanceof Response) return result;
+    const status = route.successStatus ?? 200;
+    if (status === 204) return { status, headers: {}, body: null };
+    const output = route.response.parse(result);
+    return { status, headers: { 'content-type': 'application/json', 'cache-control': 'no-store' }, body: JSON.stringify(output) };
+  } catch (error) {
+    return problemAnswer(error, instance);
+  }
 }
 
 const UNSAFE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
@@ -281,11 +335,11 @@ const UNSAFE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
  * POST, PUT, PATCH and DELETE, and one naming another site (or `null`, a sandboxed frame) is refused. A request
  * without Origin is no browser's cross-site request; a bearer token is no ambient credential, so it is not asked.
  */
-function assertSameOrigin(request: Request): void {
+function assertSameOrigin(request: RouteRequest): void {
   if (!UNSAFE_METHODS.has(request.method)) return;
   const origin = request.headers.get('origin');
   if (origin === null) return;
-  const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host') ?? new URL(request.url).host;
+  const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host') ?? request.url.host;
   let originHost: string | undefined;
   try {
     originHost = new URL(origin).host;

@@ -2,6 +2,7 @@
 // sessions over HTTP and answer trials at a fixed pace through the page's own outbox (lib/take/response-queue), so
 // a failed request is resent with the same client trial id exactly as a browser would resend it.
 import { randomUUID } from 'node:crypto';
+import { Agent, request as httpRequest } from 'node:http';
 import { ResponseQueue, type QueuedResponse } from '@/lib/take/response-queue';
 
 export interface LoadOptions {
@@ -15,6 +16,8 @@ export interface LoadOptions {
   intervalMs: number;
   /** Longest wait for the outboxes to empty after the last answer. */
   drainTimeoutMs?: number;
+  /** The web server's CPU milliseconds so far, when known: read as the answers start and after they drain. */
+  serverCpuMs?: () => number | undefined;
   /** Called once a second with the progress so far (for the fault scripts). */
   onTick?: (progress: { added: number; confirmed: number; pending: number; failedRequests: number }) => void;
 }
@@ -38,6 +41,10 @@ export interface LoadReport {
   targetRatePerSecond: number;
   throughputPerSecond: number;
   latencyMs: { p50: number; p99: number; max: number; mean: number };
+  /** CPU time the load generator itself spent per request (it shares the machine with the server). */
+  clientCpuMsPerRequest: number;
+  /** CPU time the web server spent per answer request, from the first answer on (sessions started before), when known. */
+  serverCpuMsPerRequest?: number;
   sessionCodes: string[];
 }
 
@@ -58,6 +65,50 @@ const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', 
 const START_CONCURRENCY = 10;
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/**
+ * What the outbox's `send` gets back: the part of a fetch Response it reads (ok, status, json, text). The load runs
+ * on the machine it measures, so its requests go out over node:http with keep-alive (one connection per participant,
+ * as each browser has its own) rather than through undici's fetch, which cost the generator about 2 ms of CPU per
+ * request; the outbox code that queues, sends, retries and confirms is the page's own.
+ */
+function httpSender(agent: Agent): typeof fetch {
+  return (input, init) =>
+    new Promise((resolve, reject) => {
+      const url = new URL(String(input));
+      const body = typeof init?.body === 'string' ? init.body : '';
+      const req = httpRequest(
+        {
+          agent,
+          host: url.hostname,
+          port: url.port,
+          path: url.pathname + url.search,
+          method: init?.method ?? 'GET',
+          headers: { ...(init?.headers as Record<string, string>), 'content-length': String(Buffer.byteLength(body)) },
+        },
+        (res) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('error', reject);
+          res.on('end', () => {
+            const text = Buffer.concat(chunks).toString('utf8');
+            const status = res.statusCode ?? 0;
+            resolve({ ok: status >= 200 && status < 300, status, text: async () => text, json: async () => JSON.parse(text) as unknown } as unknown as Response);
+          });
+        },
+      );
+      req.on('error', reject);
+      req.end(body);
+    });
+}
+
+/** The page keeps its outbox in localStorage; outside a browser the load gives it an in-memory one. */
+function ensureStorage(): void {
+  const g = globalThis as { localStorage?: Pick<Storage, 'getItem' | 'setItem' | 'removeItem'> };
+  if (g.localStorage) return;
+  const items = new Map<string, string>();
+  g.localStorage = { getItem: (k) => items.get(k) ?? null, setItem: (k, v) => void items.set(k, String(v)), removeItem: (k) => void items.delete(k) };
+}
 
 /** The q-quantile (0..1) of sorted values, nearest rank. */
 export function quantile(sorted: readonly number[], q: number): number {
@@ -117,6 +168,9 @@ export async function runParticipantLoad(options: LoadOptions): Promise<LoadRepo
     if (s.trials.length < trialsPerSession) throw new Error(`a session plans ${s.trials.length} trials, fewer than the ${trialsPerSession} asked for`);
   }
 
+  ensureStorage();
+  const agent = new Agent({ keepAlive: true, maxSockets: Infinity });
+  const send = httpSender(agent);
   const latencies: number[] = [];
   let failedRequests = 0;
   let duplicatesAbsorbed = 0;
@@ -128,13 +182,13 @@ export async function runParticipantLoad(options: LoadOptions): Promise<LoadRepo
     const t0 = performance.now();
     requests += 1;
     try {
-      const res = await fetch(input, init);
+      const res = await send(input, init);
       const body = await res.text();
       latencies.push(performance.now() - t0);
       if (res.status >= 500 || res.status === 429 || res.status === 408) failedRequests += 1;
       else if (!res.ok) refused += 1;
       else if (res.ok && (JSON.parse(body) as { isNew?: boolean }).isNew === false) duplicatesAbsorbed += 1;
-      return new Response(body, { status: res.status, headers: res.headers });
+      return res;
     } catch (error) {
       failedRequests += 1;
       throw error;
@@ -153,6 +207,8 @@ export async function runParticipantLoad(options: LoadOptions): Promise<LoadRepo
   );
 
   const t0 = performance.now();
+  const cpu0 = process.cpuUsage();
+  const serverCpu0 = options.serverCpuMs?.();
   const ticker = options.onTick
     ? setInterval(() => options.onTick!({ added, confirmed, pending: queues.reduce((sum, q) => sum + q.pending, 0), failedRequests }), 1000)
     : null;
@@ -176,8 +232,11 @@ export async function runParticipantLoad(options: LoadOptions): Promise<LoadRepo
   } finally {
     if (ticker) clearInterval(ticker);
     for (const q of queues) q.dispose();
+    agent.destroy();
   }
   const durationSeconds = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(cpu0);
+  const serverCpu1 = options.serverCpuMs?.();
   const sorted = [...latencies].sort((a, b) => a - b);
   const round = (x: number) => Math.round(x * 10) / 10;
   return {
@@ -193,6 +252,8 @@ export async function runParticipantLoad(options: LoadOptions): Promise<LoadRepo
     targetRatePerSecond: round((n * 1000) / intervalMs),
     throughputPerSecond: round(confirmed / durationSeconds),
     latencyMs: { p50: round(quantile(sorted, 0.5)), p99: round(quantile(sorted, 0.99)), max: round(sorted.at(-1) ?? Number.NaN), mean: round(sorted.reduce((a, b) => a + b, 0) / Math.max(1, sorted.length)) },
+    clientCpuMsPerRequest: Math.round(((cpu.user + cpu.system) / 1000 / Math.max(1, requests)) * 100) / 100,
+    ...(serverCpu0 !== undefined && serverCpu1 !== undefined ? { serverCpuMsPerRequest: Math.round(((serverCpu1 - serverCpu0) / Math.max(1, requests)) * 100) / 100 } : {}),
     sessionCodes: started.map((s) => s.sessionCode),
   };
 }

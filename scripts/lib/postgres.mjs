@@ -144,3 +144,12 @@ async function createDatabaseIfMissing(bin, port, database) {
     log('pg', `created database ${database}`);
   }
 }
+
+/**
+ * Stops the running cluster `name` at once (fast shutdown: open connections are cut, as in an operator's restart).
+ * `ensurePostgres` with the same name and port starts it again.
+ */
+export function stopPostgres(name) {
+  const r = asOwner(join(findPgBin(), 'pg_ctl'), ['-D', clusterPaths(name).data, 'stop', '-m', 'fast', '-w', '-t', '60']);
+  if (r.status !== 0) throw new Error(`pg_ctl stop failed:\n${r.stdout}\n${r.stderr}`);
+}

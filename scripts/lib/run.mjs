@@ -34,7 +34,12 @@ export function runTs(script, env) {
   return runOrThrow(process.execPath, ['--conditions=react-server', '--import', 'tsx', join(ROOT, script)], { env });
 }
 
-/** Installs dependencies with `npm ci` when node_modules is missing or older than the lockfile. */
+/**
+ * The production web server's command line after `node` (server/serve.ts: Next plus the answer fast path), used by
+ * `npm start`, the e2e tier and `npm run load -- --kill-web`.
+ */
+export const SERVE_ARGS = ['--conditions=react-server', '--import', 'tsx', join(ROOT, 'server', 'serve.ts')];
+
 /**
  * Whether node_modules holds what the lockfile asks for: npm's record of the installed tree (its hidden lockfile)
  * has every required package at the locked version. Compared by content, not by file times, so a second checkout

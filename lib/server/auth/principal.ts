@@ -19,7 +19,7 @@ export const ANONYMOUS: Principal = { kind: 'anonymous' };
  * Resolves the principal of an API request: a bearer token when the request carries an Authorization header
  * (a bad one is 401, never a fall-back to the cookie), else its session cookie.
  */
-export function getRequestPrincipal(request: Request): Promise<Principal> {
+export function getRequestPrincipal(request: { headers: { get(name: string): string | null } }): Promise<Principal> {
   const bearer = bearerTokenOf(request.headers.get('authorization'));
   if (bearer !== undefined) return principalFromBearer(bearer);
   return principalFromSessionToken(readCookie(request.headers.get('cookie'), sessionCookieName()));

@@ -42,7 +42,12 @@ const randomChars = (n: number) => Array.from({ length: n }, () => CODE_ALPHABET
 const newSessionCode = () => Array.from({ length: SESSION_CODE_GROUPS }, () => randomChars(GROUP_LENGTH)).join('-');
 const codeHashOf = (code: string) => hashToken(`session:${code.trim().toUpperCase()}`);
 
-const planCache = new Map<string, TrialPlan>();
+/**
+ * The caches live on globalThis: the production web server holds this module twice (in Next's bundle, and beside
+ * it in the answer fast path, server/ingest.ts), and the plan built when a session starts is the one its answers need.
+ */
+const caches = globalThis as unknown as { __epicyclePlanCache?: Map<string, TrialPlan>; __epicycleAnswerTargets?: Map<string, AnswerTarget> };
+const planCache = (caches.__epicyclePlanCache ??= new Map<string, TrialPlan>());
 
 async function planOf(db: DbHandle, study: { id: string; design: unknown; edition_id: string }, participant: number): Promise<TrialPlan> {
   const key = `${study.id}:${participant}`;
@@ -144,7 +149,7 @@ interface AnswerTarget {
 }
 
 /** Sessions recently answered, by code hash, so that an answer costs one statement (see `storeResponse`). */
-const answerTargets = new Map<string, AnswerTarget>();
+const answerTargets = (caches.__epicycleAnswerTargets ??= new Map<string, AnswerTarget>());
 const ANSWER_TARGET_CACHE_SIZE = 4096;
 
 async function answerTargetOf(db: Db, code: string): Promise<AnswerTarget> {
