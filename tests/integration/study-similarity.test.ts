@@ -177,7 +177,7 @@ describe('study similarity: perceptual vs designed RDMs, MDS, equalisation into 
         expected.push(Math.hypot(v.stimuli[i]!.a - v.stimuli[j]!.a, B_STRETCH * (v.stimuli[i]!.b - v.stimuli[j]!.b)));
       }),
     );
-    // The subset (and so which pairs are missing) follows the study's random seed; over runs r was 0.61 to 0.95.
+    // The subset (and so which pairs are missing) follows the study's random seed; r was 0.61 in one CI run and above 0.8 in local ones.
     expect(pearson(mapped, expected)).toBeGreaterThan(0.3);
   }, 60_000);
 
