@@ -50,6 +50,8 @@ export function toPage<R extends { id: string }, T>(
 /**
  * The keyset condition "after this cursor" for a list ordered by (`atColumn` desc, `idColumn` desc): a row-value
  * comparison, `(at, id) < (cursor at, cursor id)`, which PostgreSQL answers from an index on those columns.
+ * `atColumn` must be `timestamptz(3)`: the cursor holds a JavaScript Date, and a column with microseconds would let
+ * rows made within the cursor's millisecond slip between pages.
  */
 export function beforeCursor(cursor: string, atColumn: string, idColumn: string): RawBuilder<SqlBool> {
   const { at, id } = decodeCursor(cursor);

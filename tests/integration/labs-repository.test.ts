@@ -1,4 +1,5 @@
 import { afterAll, describe, expect, it } from 'vitest';
+import { sql } from 'kysely';
 import { AppError } from '@/lib/errors';
 import { getLabBySlug, insertLab, listLabsByIds } from '@/db/repositories/labs';
 import { insertAuditEvent, listAuditEventsForLab } from '@/db/repositories/audit-events';
@@ -13,6 +14,11 @@ describe('labs repository', () => {
     const suffix = uniqueSuffix();
     const ids: string[] = [];
     for (let i = 0; i < 5; i++) ids.push((await insertLab(db, { slug: `lab-${suffix}-${i}`, name: `Lab ${i}` })).id);
+    // Rows made within one millisecond, microseconds apart, as a fast insert loop makes them: a cursor carries a
+    // JavaScript Date, so the rows between its millisecond and the row it came from must not be skipped.
+    for (const [i, id] of ids.entries()) {
+      await sql`UPDATE labs SET created_at = ${`2026-03-01T10:00:00.1234${i}1Z`}::timestamptz WHERE id = ${id}`.execute(db);
+    }
 
     const seen: string[] = [];
     let cursor: string | undefined;
