@@ -247,6 +247,8 @@ export interface StudySessionsTable {
   study_id: string;
   participant_index: number;
   code_hash: string;
+  /** The hash of the invite token the session was started from; null for sessions older than the column. */
+  invite_token_hash: string | null;
   planned_trials: number;
   stored_trials: Generated<number>;
   screen: ColumnType<unknown, string | null, string | null>;

@@ -13,6 +13,7 @@ import * as m20261202140000 from './20261202140000_create_sessions_and_trials';
 import * as m20261202150000 from './20261202150000_create_study_results';
 import * as m20261202160000 from './20261202160000_create_space_study_links';
 import * as m20261202170000 from './20261202170000_keyset_timestamps_to_milliseconds';
+import * as m20261202180000 from './20261202180000_bind_sessions_to_invite';
 
 /**
  * Every migration, by name, in order. Listed statically so the same set runs under tsx, vitest and the app
@@ -33,4 +34,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202150000_create_study_results': m20261202150000,
   '20261202160000_create_space_study_links': m20261202160000,
   '20261202170000_keyset_timestamps_to_milliseconds': m20261202170000,
+  '20261202180000_bind_sessions_to_invite': m20261202180000,
 };

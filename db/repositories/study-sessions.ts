@@ -23,10 +23,13 @@ export async function claimParticipantIndex(db: DbHandle, studyId: string): Prom
   return row.participants_started - 1;
 }
 
-export function insertSession(db: DbHandle, v: { studyId: string; participantIndex: number; codeHash: string; plannedTrials: number; screen: unknown }): Promise<StudySessionRow> {
+export function insertSession(
+  db: DbHandle,
+  v: { studyId: string; participantIndex: number; codeHash: string; inviteTokenHash: string; plannedTrials: number; screen: unknown },
+): Promise<StudySessionRow> {
   return db
     .insertInto('study_sessions')
-    .values({ study_id: v.studyId, participant_index: v.participantIndex, code_hash: v.codeHash, planned_trials: v.plannedTrials, screen: JSON.stringify(v.screen) })
+    .values({ study_id: v.studyId, participant_index: v.participantIndex, code_hash: v.codeHash, invite_token_hash: v.inviteTokenHash, planned_trials: v.plannedTrials, screen: JSON.stringify(v.screen) })
     .returningAll()
     .executeTakeFirstOrThrow();
 }

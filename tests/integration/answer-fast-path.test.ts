@@ -159,10 +159,11 @@ describe('the answer fast path answers as the Next route does', () => {
       expect(pair[0].headers.get('content-type') ?? '', c.path).toMatch(/json/);
       expectSame(...pair);
     }
-    // Another well-formed token: the session code is the participant's credential, and both answer alike.
+    // Another well-formed token, not the session's link: both answer as for an unknown code, and store nothing.
     const [a, b] = [await start(), await start()];
     const other = 'x'.repeat(token.length);
     const pair = [await post(urlOf(fast), pathOf(a.sessionCode, other), JSON.stringify(answerOf(a.trials[0]!))), await post(urlOf(routeFile), pathOf(b.sessionCode, other), JSON.stringify(answerOf(b.trials[0]!)))] as const;
+    expect(pair[0].status).toBe(404);
     expectSame(...pair, [a.sessionCode, b.sessionCode]);
   });
 

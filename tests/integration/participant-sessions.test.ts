@@ -214,6 +214,51 @@ describe('participant sessions', () => {
     expect((await callRoute(api.listStudySessionsRoute, { params: { lab: other.slug, studyId }, cookie: other.members.owner.cookie })).status).toBe(404);
   });
 
+  it("a session code works only under its own study's link: the one it started from, or the study's current one", async () => {
+    const made = await callRoute(api.createStudyRoute, {
+      params: { lab: lab.slug },
+      body: { name: 'Other study', editionId: (await makeEdition(lab, 'Other space', true)).editionId, consentText: 'I agree.', finishCodePrefix: 'OTH-', targetParticipants: 5, design: { stimulusSizeDeg: 4, categorisation: CATEGORISATION, similarity: null } },
+      cookie: as('experimenter'),
+    });
+    const otherId = (made.body as { id: string }).id;
+    const opened = await callRoute(api.openStudyRoute, { params: { lab: lab.slug, studyId: otherId }, body: { confirmEthics: true }, cookie: as('experimenter') });
+    const otherToken = new URL((opened.body as { inviteUrl: string }).inviteUrl).pathname.split('/').pop()!;
+    const tokenOf = (body: unknown) => new URL((body as { inviteUrl: string }).inviteUrl).pathname.split('/').pop()!;
+
+    const s = (await start()).body as Session;
+    const unknown = await callRoute(api.resumeSessionRoute, { params: { token, code: 'AAAAA-BBBBB-CCCCC-DDDDD' } });
+    expect(unknown.status).toBe(404);
+    const asUnknown = { status: 404, body: { code: (unknown.body as Problem).code, detail: (unknown.body as Problem).detail } };
+    const before = await countRows();
+    // Under another study's link, the code is unknown: resume, answers (even one already cached) and finish alike.
+    expect((await answer(s.sessionCode, s.trials[0]!)).status).toBe(200);
+    const foreign = { token: otherToken, code: s.sessionCode };
+    const resumed = await callRoute(api.resumeSessionRoute, { params: foreign });
+    expect(resumed).toMatchObject(asUnknown);
+    const answered = await callRoute(api.submitResponseRoute, {
+      params: foreign,
+      body: { clientTrialId: randomUUID(), trialIndex: s.trials[1]!.index, responseKey: 'f', rating: null, rtMs: 400, achievedMs: 200, onsetMs: 0, offsetMs: 200, wasTabHidden: false, leftFullScreen: false },
+    });
+    expect(answered).toMatchObject(asUnknown);
+    expect((await callRoute(api.finishSessionRoute, { params: foreign })).status).toBe(404);
+    expect(await countRows()).toBe(before + 1);
+
+    // The lab replaces the link: the session goes on under the link it started from, and under the new one.
+    const rotated = await callRoute(api.rotateStudyInviteRoute, { params: S(), cookie: as('experimenter') });
+    expect(rotated.status).toBe(200);
+    const oldToken = token;
+    token = tokenOf(rotated.body);
+    expect((await answer(s.sessionCode, s.trials[1]!)).status).toBe(200);
+    token = oldToken;
+    expect((await answer(s.sessionCode, s.trials[2]!)).status).toBe(200);
+    token = tokenOf(rotated.body);
+    expect((await storedRows(s.sessionCode)).stored).toBe(3);
+    // A session started under the new link is not admitted by the old one, which is neither its own nor current.
+    const later = (await start()).body as Session;
+    expect((await callRoute(api.resumeSessionRoute, { params: { token: oldToken, code: later.sessionCode } })).status).toBe(404);
+    expect((await callRoute(api.resumeSessionRoute, { params: { token, code: later.sessionCode } })).status).toBe(200);
+  });
+
   it('a closed study takes no new participants but lets a session in progress finish; a revoked link is refused', async () => {
     const s = (await start()).body as Session;
     expect((await callRoute(api.closeStudyRoute, { params: S(), cookie: as('experimenter') })).status).toBe(200);

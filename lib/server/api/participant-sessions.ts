@@ -70,7 +70,7 @@ export const resumeSessionRoute = defineRoute({
   errors: [404, 409],
   params: JoinSessionPathSchema,
   response: ParticipantSessionSchema,
-  handler: ({ params }) => resumeSession(getDb(), params.code),
+  handler: ({ params }) => resumeSession(getDb(), params.token, params.code),
 });
 
 export const submitResponseRoute = defineRoute({
@@ -85,7 +85,7 @@ export const submitResponseRoute = defineRoute({
   params: JoinSessionPathSchema,
   body: TrialResponseSchema,
   response: ResponseReceiptSchema,
-  handler: ({ params, body }) => submitResponse(getDb(), params.code, body),
+  handler: ({ params, body }) => submitResponse(getDb(), params.token, params.code, body),
 });
 
 export const finishSessionRoute = defineRoute({
@@ -98,7 +98,7 @@ export const finishSessionRoute = defineRoute({
   errors: [404, 409],
   params: JoinSessionPathSchema,
   response: FinishSchema,
-  handler: ({ params }) => finishSession(getDb(), params.code),
+  handler: ({ params }) => finishSession(getDb(), params.token, params.code),
 });
 
 export const withdrawSessionRoute = defineRoute({

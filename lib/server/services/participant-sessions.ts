@@ -24,7 +24,9 @@ import { inviteTokenHash } from '../study-invite';
 
 /**
  * The participant's side of a norming study. Nobody signs in: the invite token finds the study, and the session
- * code (shown to the participant, stored only as a hash) finds their session. A session in progress keeps working
+ * code (shown to the participant, stored only as a hash) finds their session. A session's requests must come under
+ * the link it was started from or its study's current link, so a code works only on its own study's link (a
+ * withdrawal, which needs the code alone, is the exception). A session in progress keeps working
  * when the lab closes the study or changes its link; only new sessions need an open study and a live link.
  */
 
@@ -121,21 +123,47 @@ export async function startSession(db: Db, token: string, screen: ScreenCheckVal
     if (state !== 'open') throw conflict('study-closed', 'This study is closed and takes no new participants. Thank you for your interest.');
     const participant = await claimParticipantIndex(trx, study.id);
     const plan = await planOf(trx, study, participant);
-    const row = await insertSession(trx, { studyId: study.id, participantIndex: participant, codeHash: codeHashOf(code), plannedTrials: plan.trials.length, screen });
+    const row = await insertSession(trx, { studyId: study.id, participantIndex: participant, codeHash: codeHashOf(code), inviteTokenHash: inviteTokenHash(token), plannedTrials: plan.trials.length, screen });
     return sessionValue(trx, row, study, code);
   });
 }
 
-async function sessionOfCode(db: DbHandle, code: string, lock = false): Promise<{ row: StudySessionRow; study: { id: string; design: unknown; edition_id: string } }> {
-  const row = await findSessionByCodeHash(db, codeHashOf(code), { lock });
-  if (!row) throw notFound('session', 'No session has this code. Check it, or start again from the invite link.');
-  const study = await db.selectFrom('studies').select(['id', 'design', 'edition_id']).where('id', '=', row.study_id).executeTakeFirstOrThrow();
+const noSuchSession = () => notFound('session', 'No session has this code. Check it, or start again from the invite link.');
+
+/**
+ * Whether a request's invite token admits its session: the link the session was started from, or the study's
+ * current link (a participant who got the lab's new link can resume with their code). Sessions older than the
+ * binding have no link of their own, and their code alone admits them.
+ */
+const admits = (token: string, sessionTokenHash: string | null, studyTokenHash: string | null) => {
+  if (sessionTokenHash === null) return true;
+  const hash = inviteTokenHash(token);
+  return hash === sessionTokenHash || hash === studyTokenHash;
+};
+
+/**
+ * The session of a code; with `token` (every request but a withdrawal), only under a link that admits it. A
+ * token that does not answers exactly as an unknown code does, so neither can be told apart from outside.
+ */
+async function sessionOfCode(
+  db: DbHandle,
+  code: string,
+  options: { token?: string; lock?: boolean } = {},
+): Promise<{ row: StudySessionRow; study: { id: string; design: unknown; edition_id: string } }> {
+  const row = await findSessionByCodeHash(db, codeHashOf(code), { lock: options.lock ?? false });
+  if (!row) throw noSuchSession();
+  const { invite_token_hash: studyTokenHash, ...study } = await db
+    .selectFrom('studies')
+    .select(['id', 'design', 'edition_id', 'invite_token_hash'])
+    .where('id', '=', row.study_id)
+    .executeTakeFirstOrThrow();
+  if (options.token !== undefined && !admits(options.token, row.invite_token_hash, studyTokenHash)) throw noSuchSession();
   return { row, study };
 }
 
 /** The session again (after a reload): its plan, what the server holds and the next trial to take. */
-export async function resumeSession(db: Db, code: string): Promise<ParticipantSessionValue> {
-  const { row, study } = await sessionOfCode(db, code);
+export async function resumeSession(db: Db, token: string, code: string): Promise<ParticipantSessionValue> {
+  const { row, study } = await sessionOfCode(db, code, { token });
   if (row.withdrawn_at) throw conflict('session-withdrawn', 'This session was withdrawn and its answers deleted.');
   return sessionValue(db, row, study, code);
 }
@@ -143,6 +171,7 @@ export async function resumeSession(db: Db, code: string): Promise<ParticipantSe
 /** What an answer needs of its session and study that never changes once the session exists (a study opened has its design fixed). */
 interface AnswerTarget {
   sessionId: string;
+  inviteTokenHash: string | null;
   participant: number;
   plannedTrials: number;
   study: { id: string; design: unknown; edition_id: string };
@@ -152,12 +181,13 @@ interface AnswerTarget {
 const answerTargets = (caches.__epicycleAnswerTargets ??= new Map<string, AnswerTarget>());
 const ANSWER_TARGET_CACHE_SIZE = 4096;
 
-async function answerTargetOf(db: Db, code: string): Promise<AnswerTarget> {
+async function answerTargetOf(db: Db, token: string, code: string): Promise<AnswerTarget> {
   const hash = codeHashOf(code);
   const cached = answerTargets.get(hash);
-  if (cached) return cached;
-  const { row, study } = await sessionOfCode(db, code);
-  const target = { sessionId: row.id, participant: row.participant_index, plannedTrials: row.planned_trials, study };
+  // The cache answers for the session's own link; any other token is checked against the study as it is now.
+  if (cached && (cached.inviteTokenHash === null || cached.inviteTokenHash === inviteTokenHash(token))) return cached;
+  const { row, study } = await sessionOfCode(db, code, { token });
+  const target = { sessionId: row.id, inviteTokenHash: row.invite_token_hash, participant: row.participant_index, plannedTrials: row.planned_trials, study };
   if (answerTargets.size >= ANSWER_TARGET_CACHE_SIZE) answerTargets.delete(answerTargets.keys().next().value!);
   answerTargets.set(hash, target);
   return target;
@@ -169,8 +199,8 @@ async function answerTargetOf(db: Db, code: string): Promise<AnswerTarget> {
  * write is one statement that takes the session's row lock, so it is atomic against a concurrent withdrawal or
  * finish without an explicit transaction.
  */
-export async function submitResponse(db: Db, code: string, input: TrialResponseInput): Promise<ResponseReceiptValue> {
-  const target = await answerTargetOf(db, code);
+export async function submitResponse(db: Db, token: string, code: string, input: TrialResponseInput): Promise<ResponseReceiptValue> {
+  const target = await answerTargetOf(db, token, code);
   const plan = await planOf(db, target.study, target.participant);
   const trial = plan.trials[input.trialIndex];
   if (!trial || trial.index !== input.trialIndex) {
@@ -208,7 +238,7 @@ export async function submitResponse(db: Db, code: string, input: TrialResponseI
   if (stored === null) {
     // The session stopped taking answers (or was deleted): say why.
     answerTargets.delete(codeHashOf(code));
-    const { row } = await sessionOfCode(db, code);
+    const { row } = await sessionOfCode(db, code, { token });
     if (row.withdrawn_at) throw conflict('session-withdrawn', 'This session was withdrawn; its answers were deleted and no new ones are taken.');
     throw conflict('session-complete', `This session is complete: all ${row.planned_trials} trials are stored, and no further answers are taken.`);
   }
@@ -216,9 +246,9 @@ export async function submitResponse(db: Db, code: string, input: TrialResponseI
 }
 
 /** Completes the session once the server holds every planned trial, and gives the finish code (the same on a retry). */
-export async function finishSession(db: Db, code: string): Promise<FinishValue> {
+export async function finishSession(db: Db, token: string, code: string): Promise<FinishValue> {
   return db.transaction().execute(async (trx) => {
-    const { row } = await sessionOfCode(trx, code, true);
+    const { row } = await sessionOfCode(trx, code, { token, lock: true });
     if (row.withdrawn_at) throw conflict('session-withdrawn', 'This session was withdrawn and its answers deleted.');
     if (row.finish_code) return { ...countOf(row), finishCode: row.finish_code };
     const stored = await countResponses(trx, row.id);
@@ -235,7 +265,7 @@ export async function finishSession(db: Db, code: string): Promise<FinishValue> 
 /** Withdraws a session by its code, during it or afterwards: its answers and screen figures are deleted. */
 export async function withdrawSession(db: Db, code: string): Promise<{ ok: true; deletedTrials: number }> {
   return db.transaction().execute(async (trx) => {
-    const { row } = await sessionOfCode(trx, code, true);
+    const { row } = await sessionOfCode(trx, code, { lock: true });
     return { ok: true as const, deletedTrials: await withdrawRows(trx, row.id) };
   });
 }
