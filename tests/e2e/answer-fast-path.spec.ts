@@ -1,22 +1,12 @@
 import { expect, request as newRequest, test } from '@playwright/test';
 import { SignInPage } from './pages/auth-pages';
 import { DEMO_LAB_SLUG, DEMO_PASSWORD, demoUser } from './support/demo';
+import { categorisation, QUICK_TIMING, SCREEN } from '../support/study-designs';
 
 // The production server (server/serve.ts) serves a participant's answer on its fast path, and every other request
 // through Next. Both kinds of answer carry the same security and caching headers, and the fast path answers as the
 // route does: stored, stored once on a resend, and problem details for a bad body or an unknown session.
-const CATEGORISATION = {
-  directionsDeg: [0],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 1,
-  blocking: 'interleaved',
-  practiceTrials: 0,
-  catchRate: 0,
-  timing: { fixationMs: 60, probeMs: 50, blankMs: 40, responseMs: 5000, itiMs: 60 },
-  keys: ['f', 'j'],
-};
-const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
+const CATEGORISATION = categorisation({ timing: QUICK_TIMING });
 const SHARED_HEADERS = ['x-content-type-options', 'referrer-policy', 'x-frame-options', 'permissions-policy', 'cross-origin-opener-policy', 'strict-transport-security', 'content-security-policy', 'cache-control', 'content-type'];
 
 test('answers on the fast path carry the headers Next gives the API, and the route answers', async ({ page, baseURL }) => {

@@ -3,20 +3,11 @@ import { SignInPage } from './pages/auth-pages';
 import { ParticipantPages } from './pages/participant-pages';
 import { expectNoSeriousA11yViolations } from './support/axe';
 import { DEMO_LAB_SLUG, DEMO_PASSWORD, demoUser } from './support/demo';
+import { categorisation, QUICK_TIMING } from '../support/study-designs';
 
 // A small study on the demo lab's approved edition, with short timing so the run is quick:
 // 1 diameter × 7 levels × 3 repetitions, 2 practice trials, a few catch trials.
-const CATEGORISATION = {
-  directionsDeg: [0],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 3,
-  blocking: 'interleaved',
-  practiceTrials: 2,
-  catchRate: 0.1,
-  timing: { fixationMs: 60, probeMs: 50, blankMs: 40, responseMs: 5000, itiMs: 60 },
-  keys: ['f', 'j'],
-};
+const CATEGORISATION = categorisation({ repetitions: 3, practiceTrials: 2, catchRate: 0.1, timing: QUICK_TIMING });
 
 test('a participant completes a study through a network cut and a reload; every trial is stored once, and the monitor shows it', async ({ page, browser }) => {
   test.setTimeout(180_000);

@@ -6,20 +6,10 @@ import { ParticipantPages } from './pages/participant-pages';
 import { ResultsPage } from './pages/results-pages';
 import { expectNoSeriousA11yViolations } from './support/axe';
 import { DEMO_LAB_SLUG, DEMO_PASSWORD, demoUser } from './support/demo';
+import { categorisation, QUICK_TIMING, SCREEN } from '../support/study-designs';
 
 // A small study on the demo lab's approved edition: 2 diameters × 7 levels × 2 repetitions, short timing.
-const CATEGORISATION = {
-  directionsDeg: [0, 90],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 2,
-  blocking: 'interleaved',
-  practiceTrials: 2,
-  catchRate: 0.1,
-  timing: { fixationMs: 60, probeMs: 50, blankMs: 40, responseMs: 5000, itiMs: 60 },
-  keys: ['f', 'j'],
-};
-const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
+const CATEGORISATION = categorisation({ directionsDeg: [0, 90], repetitions: 2, practiceTrials: 2, catchRate: 0.1, timing: QUICK_TIMING });
 type PlannedTrial = { index: number; task: string; isPractice: boolean; isCatch: boolean; position: number; leftAnchor: 'A' | 'B'; correctKey: string | null };
 
 test('after a participant session, the results page shows a curve for every direction and its CSV downloads parse', async ({ page, browser }) => {

@@ -9,22 +9,12 @@ import { API_HEADERS, siteHeaders } from '@/lib/http-headers.mjs';
 import { createFastPath } from '@/server/ingest';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 import { makeEdition } from '../support/editions';
+import { categorisation, SCREEN } from '../support/study-designs';
 
 // The answer fast path (server/ingest.ts) beside the Next route file it stands in for, both over real sockets on
 // the same PostgreSQL: for every kind of request a participant's page (or anyone else) can send, the two give the
 // same status and the same body. The Next side streams the request body into the route file's POST, as Next does.
-const CATEGORISATION = {
-  directionsDeg: [0],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 1,
-  blocking: 'interleaved',
-  practiceTrials: 0,
-  catchRate: 0,
-  timing: { fixationMs: 300, probeMs: 200, blankMs: 100, responseMs: 1500, itiMs: 300 },
-  keys: ['f', 'j'],
-};
-const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
+const CATEGORISATION = categorisation();
 
 interface Trial {
   index: number;

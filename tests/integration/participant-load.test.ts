@@ -7,21 +7,12 @@ import { runParticipantLoad } from '@/scripts/lib/participant-load';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 import { makeEdition } from '../support/editions';
 import { RouteServer } from '../support/route-server';
+import { categorisation } from '../support/study-designs';
 
 // The small version of `npm run load` (counts only, no timing): participants answer over real HTTP through the
 // page's outbox while the server loses answers after storing them, and is killed and restarted in the middle.
 // 1 direction × 7 levels × 4 repetitions + 2 practice trials: over the 20 trials each participant answers here.
-const CATEGORISATION = {
-  directionsDeg: [0],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 4,
-  blocking: 'interleaved',
-  practiceTrials: 2,
-  catchRate: 0,
-  timing: { fixationMs: 300, probeMs: 200, blankMs: 100, responseMs: 1500, itiMs: 300 },
-  keys: ['f', 'j'],
-};
+const CATEGORISATION = categorisation({ repetitions: 4, practiceTrials: 2 });
 const SESSIONS = 10;
 const TRIALS = 20;
 

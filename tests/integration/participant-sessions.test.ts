@@ -6,6 +6,7 @@ import { getDb } from '@/lib/server/db';
 import { neutralizeCsvCell as neutralizeCell } from '@/lib/csv';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 import { makeEdition } from '../support/editions';
+import { categorisation, SCREEN } from '../support/study-designs';
 
 type Trial = { index: number; task: string; isPractice: boolean; isCatch: boolean; correctKey: string | null };
 type Session = { sessionCode: string; participant: number; stored: number; planned: number; isComplete: boolean; trials: Trial[]; answered: number[]; nextTrialIndex: number | null; finishCode: string | null };
@@ -14,18 +15,7 @@ type Problem = { status: number; code: string; detail: string; errors?: Record<s
 type MonitorRow = { id: string; participant: number; stored: number; planned: number; completedAt: string | null; catchAccuracy: number | null; medianRtMs: number | null; tabHiddenTrials: number; isExcluded: boolean; exclusionReason: string | null; withdrawnAt: string | null };
 
 // A small study: 1 direction × 7 levels × 1 repetition, 2 practice trials, some catch trials.
-const CATEGORISATION = {
-  directionsDeg: [0],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 1,
-  blocking: 'interleaved',
-  practiceTrials: 2,
-  catchRate: 0.2,
-  timing: { fixationMs: 300, probeMs: 200, blankMs: 100, responseMs: 1500, itiMs: 300 },
-  keys: ['f', 'j'],
-};
-const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
+const CATEGORISATION = categorisation({ practiceTrials: 2, catchRate: 0.2 });
 
 describe('participant sessions', () => {
   let lab: TestLab;

@@ -6,6 +6,7 @@ import { inviteTokenHash } from '@/lib/server/study-invite';
 import { findStudyByInviteHash } from '@/db/repositories/studies';
 import { callRoute, createLabWithEveryRole, type TestLab } from '../support/actors';
 import { makeEdition } from '../support/editions';
+import { categorisation } from '../support/study-designs';
 
 type Study = {
   id: string;
@@ -23,17 +24,7 @@ type Study = {
 type Problem = { status: number; code: string; errors?: Record<string, string[]> };
 type Plan = { participant: number; keys: { left: string; right: string }; trials: { index: number; task: string }[]; summary: { cells: { trials: number; leftA: number }[]; totalTrials: number } };
 
-const CATEGORISATION = {
-  directionsDeg: [0, 45, 90, 135],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 2,
-  blocking: 'interleaved',
-  practiceTrials: 4,
-  catchRate: 0.1,
-  timing: { fixationMs: 500, probeMs: 300, blankMs: 200, responseMs: 2000, itiMs: 600 },
-  keys: ['f', 'j'],
-};
+const CATEGORISATION = categorisation({ directionsDeg: [0, 45, 90, 135], repetitions: 2, practiceTrials: 4, catchRate: 0.1, timing: { fixationMs: 500, probeMs: 300, blankMs: 200, responseMs: 2000, itiMs: 600 } });
 
 describe('norming studies API', () => {
   let lab: TestLab;

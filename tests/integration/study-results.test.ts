@@ -15,24 +15,14 @@ import { callRoute, createLabWithEveryRole, type TestLab } from '../support/acto
 import { parseCsv } from '../support/csv';
 import { makeEdition } from '../support/editions';
 import { keyedDraws } from '../support/keyed-draws';
+import { categorisation, SCREEN } from '../support/study-designs';
 
 type Trial = { index: number; task: string; isPractice: boolean; isCatch: boolean; position: number; directionDeg: number; leftAnchor: 'A' | 'B'; correctKey: string | null };
 type Session = { sessionCode: string; participant: number; trials: Trial[] };
 type Problem = { status: number; code: string; errors?: Record<string, string[]> };
 
 // Two diameters × 7 levels × 4 repetitions, catch trials, 2 practice trials (an invented study).
-const CATEGORISATION = {
-  directionsDeg: [0, 90],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 4,
-  blocking: 'interleaved',
-  practiceTrials: 2,
-  catchRate: 0.15,
-  timing: { fixationMs: 300, probeMs: 200, blankMs: 100, responseMs: 1500, itiMs: 300 },
-  keys: ['f', 'j'],
-};
-const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
+const CATEGORISATION = categorisation({ directionsDeg: [0, 90], repetitions: 4, practiceTrials: 2, catchRate: 0.15 });
 const SETTINGS = { link: 'logit', lapseMode: 'free', lapseValue: 0.06, resamples: 1000, seed: 11, alpha: 0.05, catchAccuracyMin: 0.75, rtMadK: 3 };
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 

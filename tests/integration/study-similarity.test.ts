@@ -11,6 +11,7 @@ import { resolveLabActor } from '@/lib/server/services/access';
 import { getStudyResults } from '@/lib/server/services/study-results';
 import { keyedDraws } from '../support/keyed-draws';
 import { pearson } from '@/lib/stats';
+import { categorisation, SCREEN } from '../support/study-designs';
 
 type Trial =
   | { task: 'similarity'; index: number; first: string; second: string }
@@ -18,19 +19,8 @@ type Trial =
 type Session = { sessionCode: string; participant: number; keys: { left: string; right: string } | null; trials: Trial[] };
 
 // Two directions, 11 levels, 6 repetitions, no practice or catch trials; every pair of the 13 stimuli once.
-const CATEGORISATION = {
-  directionsDeg: [0, 90],
-  steps: 11,
-  extent: 0.8,
-  repetitions: 6,
-  blocking: 'interleaved',
-  practiceTrials: 0,
-  catchRate: 0,
-  timing: { fixationMs: 300, probeMs: 200, blankMs: 100, responseMs: 1500, itiMs: 300 },
-  keys: ['f', 'j'],
-};
+const CATEGORISATION = categorisation({ directionsDeg: [0, 90], steps: 11, repetitions: 6 });
 const SIMILARITY = { ...DEFAULT_SIMILARITY, presentation: 'simultaneous', timing: { ...DEFAULT_SIMILARITY.timing } };
-const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
 /** The simulated observers (invented): twice as sensitive along Axis B (90°) as along Axis A (0°). */
 const SPREAD = { 0: 0.3, 90: 0.15 } as Record<number, number>;
 const B_STRETCH = 2;

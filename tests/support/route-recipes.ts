@@ -17,6 +17,7 @@ import { callRoute, sessionCookie, TEST_PASSWORD, type TestLab } from './actors'
 import { formulaCellsIn } from './csv-safety';
 import { TEST_SEED, testSpaceSettings } from './editions';
 import { uniqueSuffix } from './db';
+import { categorisation, SCREEN } from './study-designs';
 
 export type RecipeRole = keyof TestLab['members'];
 /** Who makes a recipe's call: a member of the lab by role, the lab's write token, nobody, or a given session. */
@@ -56,20 +57,9 @@ export interface RecipeBook {
 }
 
 const SPACE = testSpaceSettings({ kind: 'rings', rings: 1, spokes: 4 });
-export const CATEGORISATION = {
-  directionsDeg: [0, 90],
-  steps: 7,
-  extent: 0.8,
-  repetitions: 1,
-  blocking: 'interleaved',
-  practiceTrials: 2,
-  catchRate: 0.1,
-  timing: { fixationMs: 500, probeMs: 300, blankMs: 200, responseMs: 2000, itiMs: 600 },
-  keys: ['f', 'j'],
-};
+export const CATEGORISATION = categorisation({ directionsDeg: [0, 90], practiceTrials: 2, catchRate: 0.1, timing: { fixationMs: 500, probeMs: 300, blankMs: 200, responseMs: 2000, itiMs: 600 } });
 const PROFILE = { resolutionPx: { width: 1920, height: 1080 }, widthCm: 53.1, pixelsPerCm: null, viewingDistanceCm: 57 };
 const CSV_CIRCLE = Array.from({ length: 64 }, (_, i) => `${Math.cos((2 * Math.PI * i) / 64).toFixed(6)},${Math.sin((2 * Math.PI * i) / 64).toFixed(6)}`).join('\n');
-const SCREEN = { pxPerMm: 3.78, viewingDistanceCm: 57, distanceMethod: 'typed', refreshHz: 60, isFullScreen: true };
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Starts pg-boss and a pack worker; returns the stop function. */
