@@ -1,6 +1,7 @@
 import { classicalMds } from './classical-mds';
 import { checkSquareMatrix, type SquareMatrix } from './square-matrix';
 import { StatsError } from './stats-error';
+import { symmetricEigen } from './symmetric-eigen';
 
 export interface SmacofMds {
   /** One point per item, `dims` coordinates each, centred on the origin. */
@@ -55,37 +56,23 @@ function shortestPaths(d: SquareMatrix): Float64Array {
   return out;
 }
 
-/** Inverse of a symmetric positive-definite n × n matrix by Gauss–Jordan elimination with partial pivoting. */
-function invert(a: Float64Array, n: number): Float64Array {
-  const m = Float64Array.from(a);
-  const inv = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) inv[i * n + i] = 1;
-  for (let col = 0; col < n; col++) {
-    let pivot = col;
-    for (let r = col + 1; r < n; r++) if (Math.abs(m[r * n + col] as number) > Math.abs(m[pivot * n + col] as number)) pivot = r;
-    const p = m[pivot * n + col] as number;
-    if (!(Math.abs(p) > 1e-300)) throw new StatsError('invalid-option', 'The weight matrix of the rated pairs is singular.');
-    if (pivot !== col) {
-      for (let c = 0; c < n; c++) {
-        [m[col * n + c], m[pivot * n + c]] = [m[pivot * n + c] as number, m[col * n + c] as number];
-        [inv[col * n + c], inv[pivot * n + c]] = [inv[pivot * n + c] as number, inv[col * n + c] as number];
-      }
-    }
-    for (let c = 0; c < n; c++) {
-      m[col * n + c] = (m[col * n + c] as number) / p;
-      inv[col * n + c] = (inv[col * n + c] as number) / p;
-    }
-    for (let r = 0; r < n; r++) {
-      if (r === col) continue;
-      const f = m[r * n + col] as number;
-      if (f === 0) continue;
-      for (let c = 0; c < n; c++) {
-        m[r * n + c] = (m[r * n + c] as number) - f * (m[col * n + c] as number);
-        inv[r * n + c] = (inv[r * n + c] as number) - f * (inv[col * n + c] as number);
-      }
+/**
+ * The Moore–Penrose inverse of a symmetric positive-semidefinite matrix from its eigen-decomposition:
+ * Σ u uᵀ / λ over the eigenvalues above rounding (those within 1e−12 of the largest count as zero).
+ */
+function pseudoInverse(a: Float64Array, n: number): Float64Array {
+  const { values, vectors } = symmetricEigen({ size: n, values: a });
+  const floor = 1e-12 * Math.max(Math.abs(values[0] as number), Math.abs(values[n - 1] as number));
+  const out = new Float64Array(n * n);
+  for (let k = 0; k < n; k++) {
+    const lambda = values[k] as number;
+    if (!(lambda > floor)) continue;
+    for (let i = 0; i < n; i++) {
+      const ui = (vectors[i * n + k] as number) / lambda;
+      for (let j = 0; j < n; j++) out[i * n + j] = (out[i * n + j] as number) + ui * (vectors[j * n + k] as number);
     }
   }
-  return inv;
+  return out;
 }
 
 /**
@@ -93,7 +80,7 @@ function invert(a: Float64Array, n: number): Float64Array {
  * SMACOF (de Leeuw 1977; de Leeuw & Mair 2009, J. Stat. Softw. 31(3), §2), weight 1 for a pair with a
  * dissimilarity and 0 for one without (NaN). It minimises the raw stress Σ w (δ − d(X))² by Guttman transforms
  * X ← V⁺ B(X) X, each of which lowers the stress or leaves it (V⁺ is the Moore–Penrose inverse of the weights'
- * Laplacian, (V + 11ᵀ/n)⁻¹ − 11ᵀ/n). It starts from the classical MDS (`classicalMds`) of the shortest paths
+ * Laplacian). It starts from the classical MDS (`classicalMds`) of the shortest paths
  * over the rated pairs, so with no entry missing it starts from the classical map and can only improve on it.
  * D symmetric (upper triangle read), n ≥ 3; the rated pairs must link every item (else `invalid-option`: the
  * map's parts could not be placed relative to each other). Raises `StatsError` (`length-mismatch`,
@@ -131,8 +118,7 @@ export function smacof(d: SquareMatrix, dims: number, options: SmacofOptions = {
   const paths = shortestPaths(d);
   if (paths.some((p) => p === Infinity)) throw new StatsError('invalid-option', 'The rated pairs do not link every stimulus to every other, so their places in one map are not determined.');
   if (!(scale > 0)) throw new StatsError('invalid-option', 'Every rated dissimilarity is 0: there is nothing to map.');
-  const shifted = Float64Array.from(v, (x) => x + 1 / n);
-  const vPlus = invert(shifted, n).map((x) => x - 1 / n);
+  const vPlus = pseudoInverse(v, n);
 
   // Phase 2: the start, and its stress.
   let x: Float64Array = new Float64Array(n * dims);
