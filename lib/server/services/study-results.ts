@@ -206,9 +206,9 @@ function runNow(input: ResultsInput): CategorisationAnalysis {
  * now when that takes under about a second (`inlineFits` resample fits); otherwise queued as a job, answered with
  * state `queued` and then `running` with its progress until it is ready.
  */
-export async function getStudyResults(db: Db, actor: LabActor, studyId: string, options: { inlineFits?: number } = {}): Promise<StudyResultsValue> {
+export async function getStudyResults(db: Db, actor: LabActor, studyId: string, options: { inlineFits?: number; study?: StudyListRow } = {}): Promise<StudyResultsValue> {
   authorize(actor, 'results:read');
-  const p = await prepare(db, await getStudy(db, actor.labId, studyId));
+  const p = await prepare(db, options.study ?? (await getStudy(db, actor.labId, studyId)));
   const cached = await findResult(db, studyId, p.dataHash);
   if (cached) return toResults(p, cached);
   const fits = countFitSets(p.input.assembled) * p.settings.resamples * 2;
@@ -337,8 +337,8 @@ export async function removeManualExclusion(db: Db, actor: LabActor, studyId: st
 }
 
 /** The ready results, or a conflict saying they are still being computed (or failed). */
-async function readyReport(db: Db, actor: LabActor, studyId: string): Promise<StudyReportValue> {
-  const results = await getStudyResults(db, actor, studyId);
+async function readyReport(db: Db, actor: LabActor, studyId: string, study?: StudyListRow): Promise<StudyReportValue> {
+  const results = await getStudyResults(db, actor, studyId, study ? { study } : {});
   if (results.state !== 'ready' || !results.report) {
     throw conflict('results', results.state === 'failed' ? `The results could not be computed: ${results.error ?? 'unknown error'}` : 'The results are still being computed; try again when they are ready.');
   }
@@ -347,9 +347,10 @@ async function readyReport(db: Db, actor: LabActor, studyId: string): Promise<St
 
 /** report.json: the categorisation results and, for a study with a pair-similarity task, the similarity section. */
 export async function studyReport(db: Db, actor: LabActor, studyId: string): Promise<StudyReportValue> {
-  const report = await readyReport(db, actor, studyId);
-  const design = (await getStudy(db, actor.labId, studyId)).design as StudyDesign;
-  const similarity = design.similarity ? await getStudySimilarity(db, actor, studyId) : null;
+  authorize(actor, 'results:read');
+  const study = await getStudy(db, actor.labId, studyId);
+  const report = await readyReport(db, actor, studyId, study);
+  const similarity = (study.design as StudyDesign).similarity ? await getStudySimilarity(db, actor, studyId, study) : null;
   return { ...report, sections: { ...report.sections, similarity } };
 }
 

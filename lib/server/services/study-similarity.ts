@@ -80,8 +80,8 @@ interface Analysis {
 
 const cache = new Map<string, Analysis>();
 
-async function load(db: Db, actor: LabActor, studyId: string): Promise<Loaded> {
-  const study = await getStudy(db, actor.labId, studyId);
+async function load(db: Db, actor: LabActor, studyId: string, read?: StudyListRow): Promise<Loaded> {
+  const study = read ?? (await getStudy(db, actor.labId, studyId));
   const edition = await findEditionById(db, actor.labId, study.edition_id);
   if (!edition) throw notFound('study', 'The edition of this study no longer exists.');
   const snapshot = EditionSnapshotSchema.parse(await getEditionSnapshot(db, study.edition_id));
@@ -309,9 +309,9 @@ async function derivedSpaces(db: Db, actor: LabActor, studyId: string): Promise<
  * RDMs, the MDS map aligned to the design (classical, or SMACOF over the rated pairs when some are missing), the pooled slope per direction, and the equalisation
  * suggestions. Excluded sessions are left out.
  */
-export async function getStudySimilarity(db: Db, actor: LabActor, studyId: string): Promise<StudySimilarityValue> {
+export async function getStudySimilarity(db: Db, actor: LabActor, studyId: string, study?: StudyListRow): Promise<StudySimilarityValue> {
   authorize(actor, 'similarity:read');
-  const analysis = analyse(await load(db, actor, studyId));
+  const analysis = analyse(await load(db, actor, studyId, study));
   return toValue(analysis, await derivedSpaces(db, actor, studyId));
 }
 
